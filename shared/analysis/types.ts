@@ -1,0 +1,83 @@
+/**
+ * The result of one pipeline run over a capture (DESIGN.md "The analysis pipeline"). The CLI's
+ * `--json` output is a projection of this (typed arrays dropped); the ranking reads the spectra.
+ * Orders are multiples of crank speed; amplitudes are single-sided peak amplitudes in input units
+ * times the channel scale, corrected for the window's coherent gain.
+ */
+
+export interface Peak {
+  order: number;
+  amplitude: number;
+  snrDb: number;
+  /** The 0.5-order multiple the peak lies on within half the order resolution, else null. */
+  engineOrder: number | null;
+  /** engineOrder is a multiple of cylinders / 2. */
+  firing: boolean;
+}
+
+/** An amplitude spectrum over crank order: bin k is at order k * resolution. */
+export interface OrderSpectrum {
+  resolution: number;
+  maxOrder: number;
+  samplesPerRev: number;
+  revsPerBlock: number;
+  blocks: number;
+  amplitude: Float64Array;
+  /** Running-median floor on the same bins (for SNR and prominence). */
+  floor: Float64Array;
+}
+
+export interface EnvelopeBand {
+  bandHz: [number, number];
+  /** Spectral kurtosis (or other impulsiveness score) that chose this band. */
+  score: number;
+  spectrum: OrderSpectrum;
+  peaks: Peak[];
+}
+
+export interface SpeedSummary {
+  meanRpm: number;
+  minRpm: number;
+  maxRpm: number;
+  stabilityPct: number;
+  edges: number;
+  repairedEdges: number;
+}
+
+export interface CycleEvent {
+  angleDeg: number;
+  cylinder: number | null;
+  candidates: number[];
+  afterTdcDeg: number;
+}
+
+export interface CycleResult {
+  tdcOffsetDeg: number;
+  phaseResolved: boolean;
+  /** Number of whole 720° cycles in the synchronous average (for the comb gain of REFERENCES.md §3). */
+  cyclesAveraged: number;
+  event: CycleEvent | null;
+  /** Synchronous average and short-window RMS over 720°, for the engine-cycle view. */
+  averageDeg?: Float32Array;
+  rmsDeg?: Float32Array;
+}
+
+export interface Warning { code: string; message: string }
+
+export interface AnalysisTimingsMs {
+  read: number; speed: number; orders: number; envelope: number; cycle: number;
+  spectrogram: number; peaks: number; ranking: number; total: number;
+}
+
+/**
+ * What the ranking needs from one capture's analysis: the raw order spectrum, the envelope
+ * spectra of the best bands (first = the reported one), the cylinder count and the number of
+ * cycles the 720° average used.
+ */
+export interface RankingInput {
+  orders: OrderSpectrum;
+  envelopes: EnvelopeBand[];
+  cylinders: number;
+  cyclesAveraged: number;
+  meanRpm: number;
+}
