@@ -81,3 +81,33 @@ export interface RankingInput {
   cyclesAveraged: number;
   meanRpm: number;
 }
+
+/** One matched line behind a ranking entry (also stored per capture on a Finding). */
+export interface MatchedLine {
+  label: string;
+  spectrum: 'orders' | 'envelope';
+  nominalOrder: number;
+  order: number;
+  amplitude: number;
+  snrDb: number;
+  /** Comb gain of the 720° average at this order (REFERENCES.md §3); > ~0.3 means not separable. */
+  cycleGain: number;
+}
+
+/** One (component, fault) suspect: the `ranking` entries of `analyze --json`, plus the matched lines. */
+export interface RankingEntry {
+  component: string;
+  target: 'component' | 'belt';
+  fault: 'shaft' | 'outer_race' | 'inner_race' | 'ball' | 'cage' | 'belt';
+  /** Measured crank order of the strongest matched line. */
+  order: number;
+  /** That line's nominal order. */
+  nominalOrder: number;
+  score: number;
+  /** 100·(1 − measured/nominal) from shaft lines (positive = slower); null without one. */
+  slipPct: number | null;
+  evidence: string;
+  indistinguishableFrom: string[];
+  approximate: boolean;
+  matched: MatchedLine[];
+}
