@@ -74,6 +74,11 @@ export interface CandidateLine {
   engineSynchronous: boolean;
   /** Within the slip tolerance of an integer multiple of the part's own shaft order. */
   nearShaftHarmonic: boolean;
+  /** How the line moves with slip (see shared/drive/line-windows.ts). */
+  role: 'shaft' | 'turning' | 'fixed' | 'belt';
+  /** For a sideband: the harmonic of the carrier it flanks and the modulating order's nominal value. */
+  carrierHarmonic?: number;
+  modulatorOrder?: number;
 }
 
 export interface ComponentCandidates {
@@ -87,5 +92,7 @@ export interface ComponentCandidates {
   factors?: BearingFactors;
   approximate: boolean;
   rotatingRing: RotatingRing;
+  /** How the part is driven: friction belt, fixed ratio (gear, cam, timing belt) or loosely (overrunning, fan clutch). */
+  regime: 'belt' | 'fixed' | 'loose';
   lines: CandidateLine[];
 }
