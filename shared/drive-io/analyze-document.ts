@@ -5,6 +5,7 @@
  * and drops the designation. Bearings given by geometry or by factors pass through unchanged.
  */
 import type { BearingSpec, ComponentSpec, DriveDocument } from '../drive/types';
+import { normaliseDesignation } from '../drive/bearing-table';
 
 /** Geometry of one bearing designation, as the shop's BearingType table holds it. */
 export interface BearingGeometry {
@@ -52,11 +53,14 @@ export function toAnalyzeDocument(doc: DriveDocument, lookup: DesignationLookup)
   };
 }
 
-/** A lookup over a list of rows keyed by designation, case-insensitive. */
+/**
+ * A lookup over a list of rows keyed by designation, matched as the drive kinematics match them
+ * (`normaliseDesignation`: case-insensitive, seal suffixes such as -2RS dropped).
+ */
 export function designationLookup(rows: readonly (BearingGeometry & { designation: string })[]): DesignationLookup {
-  const byLower = new Map(rows.map((r) => [r.designation.toLowerCase(), r]));
+  const byKey = new Map(rows.map((r) => [normaliseDesignation(r.designation), r]));
   return (designation) => {
-    const r = byLower.get(designation.toLowerCase());
+    const r = byKey.get(normaliseDesignation(designation));
     return r ? { balls: r.balls, ballMm: r.ballMm, pitchMm: r.pitchMm, contactDeg: r.contactDeg } : undefined;
   };
 }

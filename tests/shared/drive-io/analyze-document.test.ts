@@ -28,6 +28,11 @@ describe('toAnalyzeDocument', () => {
     expect(() => toAnalyzeDocument(doc, TABLE)).toThrow(/Odd idler.*X99/);
   });
 
+  it('matches designations as the kinematics do (case and seal suffix ignored)', () => {
+    expect(TABLE('6203-2rs')?.balls).toBe(8);
+    expect(TABLE('6205 ZZ')?.balls).toBe(9);
+  });
+
   it('makes a file name from the engine name', () => {
     expect(exportFileName('Demo 1.6 I4 petrol', 'drive.json')).toBe('demo-1-6-i4-petrol.drive.json');
     expect(exportFileName('***', 'components.csv')).toBe('engine.components.csv');
