@@ -1,0 +1,49 @@
+/**
+ * Importing a component table into an existing engine: read the CSV (field by field, every row),
+ * put the rows in place of the document's components, then validate the whole document against
+ * the drive schema (ranges, unique names, one crankshaft, chained belts) and map each problem back
+ * to the CSV line it came from. Nothing is returned unless every row is good.
+ */
+import type { DriveDocument } from '../drive/types';
+import { DriveDocumentError, parseDriveDocument } from '../schemas/drive';
+import { parseComponentCsv, type CsvImportProblem } from './component-table';
+
+/** A problem of an import: its CSV line (absent when it lies outside the file, e.g. a belt's driver) and JSON path. */
+export interface ComponentImportProblem extends Omit<CsvImportProblem, 'line'> {
+  line?: number;
+  /** JSON path in the resulting document, e.g. `components[2].pulleyMm`, when the drive schema found it. */
+  path?: string;
+}
+
+/** The new document, or every problem found. */
+export type ComponentImportResult =
+  | { ok: true; document: DriveDocument }
+  | { ok: false; problems: ComponentImportProblem[] };
+
+const COMPONENT_PATH = /^components\[(\d+)\](?:\.(.+))?$/;
+
+/**
+ * Replaces `doc`'s components with the rows of `csvText`. Belts stay as they are; rows must name
+ * them. Problems carry the CSV line (1-based, header = line 1) and, from the schema, the JSON path
+ * and the column (the path's last segment: `bearing.ballMm` → `ballMm`).
+ */
+export function importComponentCsv(doc: DriveDocument, csvText: string): ComponentImportResult {
+  const read = parseComponentCsv(csvText, doc.belts);
+  if (!read.ok) return { ok: false, problems: read.problems };
+  const candidate: DriveDocument = { ...doc, components: read.components };
+  try {
+    return { ok: true, document: parseDriveDocument(candidate) };
+  } catch (error) {
+    if (!(error instanceof DriveDocumentError)) throw error;
+    const problems = error.issues.map((issue): ComponentImportProblem => {
+      const m = COMPONENT_PATH.exec(issue.path);
+      if (!m) return { path: issue.path, message: `${issue.path}: ${issue.message}` };
+      const row = Number(m[1]);
+      const rest = m[2];
+      const field = rest ? rest.split('.').pop()!.replace(/\[\d+\]$/, '') : undefined;
+      return { line: read.lines[row], path: issue.path, ...(field ? { field } : {}), message: issue.message };
+    });
+    problems.sort((a, b) => (a.line ?? Infinity) - (b.line ?? Infinity));
+    return { ok: false, problems };
+  }
+}
