@@ -1,0 +1,85 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { createBrowserRouter, redirect, type RouteObject } from 'react-router-dom';
+import { paths } from './paths';
+import { AppLayout, appLayoutLoader } from './routes/app-layout';
+import { BearingsRoute } from './routes/bearings';
+import { CapturePlannerRoute } from './routes/capture-planner';
+import { CasesRoute } from './routes/cases';
+import { DriveLibraryRoute } from './routes/drive-library';
+import { InviteAcceptRoute, inviteAcceptLoader } from './routes/invite-accept';
+import { NotFoundRoute } from './routes/not-found';
+import { OutboxMessageRoute, outboxMessageLoader } from './routes/outbox-message';
+import { OutboxIndexRoute, OutboxRoute, outboxLoader } from './routes/outbox';
+import { PublicLayout } from './routes/public-layout';
+import { ResetPasswordCompleteRoute } from './routes/reset-password-complete';
+import { ResetPasswordRoute } from './routes/reset-password';
+import { RootLayout } from './routes/root';
+import { RouteError } from './routes/route-error';
+import { SetupRoute, setupLoader } from './routes/setup';
+import { ShopSetupRoute, shopSetupLoader } from './routes/shop-setup';
+import { SignInRoute, signInLoader } from './routes/sign-in';
+import { SignOutRoute, signOutAction } from './routes/sign-out';
+import { TeamRoute, teamLoader } from './routes/team';
+
+/**
+ * The client's routes (React Router data router). Loaders warm the TanStack Query cache with the
+ * same queryOptions the screens read, so a page renders with its data and a failed load lands in
+ * the route's error boundary. Public pages sit in one layout, signed-in pages in the app layout,
+ * whose loader sends a visitor without a session to sign-in.
+ */
+export function createRoutes(queryClient: QueryClient): RouteObject[] {
+  return [
+    {
+      element: <RootLayout />,
+      errorElement: <RouteError />,
+      children: [
+        {
+          element: <PublicLayout />,
+          children: [
+            { path: paths.signIn, element: <SignInRoute />, loader: signInLoader(queryClient) },
+            { path: paths.signOut, element: <SignOutRoute />, action: signOutAction(queryClient) },
+            { path: paths.setup, element: <SetupRoute />, loader: setupLoader(queryClient) },
+            { path: '/invite/:token', element: <InviteAcceptRoute />, loader: inviteAcceptLoader(queryClient) },
+            { path: paths.resetPassword, element: <ResetPasswordRoute /> },
+            { path: '/reset-password/:token', element: <ResetPasswordCompleteRoute /> },
+          ],
+        },
+        {
+          path: paths.home,
+          element: <AppLayout />,
+          loader: appLayoutLoader(queryClient),
+          children: [
+            {
+              // Errors of a page render inside the layout, so the navigation stays usable.
+              errorElement: <RouteError />,
+              children: [
+                { index: true, loader: () => redirect(paths.cases) },
+                { path: paths.cases, element: <CasesRoute /> },
+                { path: paths.driveLibrary, element: <DriveLibraryRoute /> },
+                { path: paths.bearings, element: <BearingsRoute /> },
+                { path: paths.capturePlanner, element: <CapturePlannerRoute /> },
+                { path: paths.team, element: <TeamRoute />, loader: teamLoader(queryClient) },
+                {
+                  path: paths.outbox,
+                  element: <OutboxRoute />,
+                  loader: outboxLoader(queryClient),
+                  children: [
+                    { index: true, element: <OutboxIndexRoute /> },
+                    { path: ':id', element: <OutboxMessageRoute />, loader: outboxMessageLoader(queryClient), errorElement: <RouteError /> },
+                  ],
+                },
+                { path: paths.shopSetup, element: <ShopSetupRoute />, loader: shopSetupLoader(queryClient) },
+                { path: '*', element: <NotFoundRoute /> },
+              ],
+            },
+          ],
+        },
+      ],
+    },
+  ];
+}
+
+/** The browser router of the running app. */
+export function createAppRouter(queryClient: QueryClient) {
+  return createBrowserRouter(createRoutes(queryClient));
+}
