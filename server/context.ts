@@ -1,0 +1,27 @@
+// What route handlers and services need from the running app, kept on app.locals.ctx.
+import type { Request } from 'express';
+import type { Authenticator } from 'passport';
+import type { RequestHandler } from 'express';
+import type { Sequelize } from 'sequelize';
+import type { Env } from './env';
+import type { Logger } from './logger';
+import type { Mailer } from './mail/mailer';
+
+/** The app's collaborators, built once by createApp(). */
+export interface AppContext {
+  env: Env;
+  sequelize: Sequelize;
+  mailer: Mailer;
+  logger: Logger;
+  passport: Authenticator;
+  signInLimiter: RequestHandler;
+  /** Base URL for e-mailed links, without a trailing slash. */
+  publicUrl: string;
+  /** Name of the session cookie (cleared at sign-out). */
+  sessionCookie: string;
+}
+
+/** The context of the app serving `req`. */
+export function appContext(req: Request): AppContext {
+  return req.app.locals.ctx as AppContext;
+}

@@ -1,0 +1,65 @@
+// Environment, parsed once at boot with zod: a bad value stops the server with a message naming
+// the variable, instead of failing later in a request.
+import { z } from 'zod';
+
+const boolish = z
+  .enum(['on', 'off', 'true', 'false', '1', '0', 'yes', 'no'])
+  .transform((v) => ['on', 'true', '1', 'yes'].includes(v));
+
+const port = z.coerce.number().int().min(0).max(65535);
+
+/** Every environment variable the server reads, with its default (listed in README "Configuration"). */
+export const EnvSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  HOST: z.string().default('127.0.0.1'),
+  PORT: port.default(3000),
+  /** Public base URL used in e-mailed links; defaults to http://HOST:PORT. */
+  PUBLIC_URL: z.url().optional(),
+  DATABASE_URL: z.string().regex(/^(mariadb|mysql):\/\//, 'must start with mariadb:// or mysql://').optional(),
+  DB_PORT: port.default(3307),
+  DB_DATA_DIR: z.string().optional(),
+  /** Signs session cookies and CSRF tokens; generated and kept in .data/session-secret when unset. */
+  SESSION_SECRET: z.string().min(32, 'use at least 32 characters').optional(),
+  SESSION_MAX_AGE_HOURS: z.coerce.number().positive().default(12),
+  MAIL_URL: z.string().regex(/^smtps?:\/\//, 'must start with smtp:// or smtps://').optional(),
+  MAIL_FROM: z.string().default('Crankwise <no-reply@crankwise.test>'),
+  MAIL_FAKE_PORT: port.default(2525),
+  DEMO: boolish.default(true),
+  SIGNIN_MAX_FAILURES: z.coerce.number().int().min(1).default(10),
+  SIGNIN_WINDOW_MIN: z.coerce.number().positive().default(15),
+  INVITE_TTL_HOURS: z.coerce.number().positive().default(48),
+  RESET_TTL_MIN: z.coerce.number().positive().default(60),
+  /** Express "trust proxy" value: unset (no proxy), a hop count, or `true`. Also makes cookies Secure. */
+  TRUST_PROXY: z.string().optional(),
+  BCRYPT_ROUNDS: z.coerce.number().int().min(4).max(15).default(10),
+  LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
+  /** Folder of the built client (served with an SPA fallback); unset = dist/client under the project. */
+  CLIENT_DIR: z.string().optional(),
+});
+
+/** The parsed environment. */
+export type Env = z.infer<typeof EnvSchema>;
+
+/**
+ * Parses an environment object (default process.env). Throws an Error listing every bad variable.
+ * Empty strings count as unset, so `PORT=` falls back to the default.
+ */
+export function parseEnv(source: NodeJS.ProcessEnv = process.env): Env {
+  const cleaned = Object.fromEntries(Object.entries(source).filter(([, v]) => v !== undefined && v !== ''));
+  const result = EnvSchema.safeParse(cleaned);
+  if (!result.success) {
+    const lines = result.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`);
+    throw new Error(`Bad environment: ${lines.join('; ')}`);
+  }
+  return result.data;
+}
+
+/** Whether cookies must be Secure: behind a proxy (TRUST_PROXY) or when the public URL is https. */
+export function cookiesSecure(env: Env): boolean {
+  return (env.TRUST_PROXY !== undefined && env.TRUST_PROXY !== 'false') || (env.PUBLIC_URL?.startsWith('https:') ?? false);
+}
+
+/** The base URL for links in e-mails. */
+export function publicUrl(env: Env): string {
+  return (env.PUBLIC_URL ?? `http://${env.HOST}:${env.PORT}`).replace(/\/$/, '');
+}

@@ -1,0 +1,27 @@
+// Sign-in rate limit keyed on client IP + lower-cased e-mail: only failed attempts count, so a shop
+// signing many people in from one address (or a test suite) is never throttled.
+import type { RequestHandler } from 'express';
+import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+
+/** At most `maxFailures` failed sign-ins per IP + e-mail per `windowMin` minutes; then 429 `too_many_attempts`. */
+export function signInLimit(maxFailures: number, windowMin: number): RequestHandler {
+  return rateLimit({
+    windowMs: windowMin * 60_000,
+    limit: maxFailures,
+    skipSuccessfulRequests: true,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    keyGenerator: (req) => {
+      const email = typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase() : '';
+      return `${ipKeyGenerator(req.ip ?? '')}|${email}`;
+    },
+    handler: (_req, res) => {
+      res.status(429).json({
+        error: {
+          code: 'too_many_attempts',
+          message: `Too many failed sign-ins for this address; wait ${windowMin} minutes or reset your password`,
+        },
+      });
+    },
+  });
+}
