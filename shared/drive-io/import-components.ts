@@ -15,9 +15,9 @@ export interface ComponentImportProblem extends Omit<CsvImportProblem, 'line'> {
   path?: string;
 }
 
-/** The new document, or every problem found. */
+/** The new document with the CSV line of each component, or every problem found. */
 export type ComponentImportResult =
-  | { ok: true; document: DriveDocument }
+  | { ok: true; document: DriveDocument; lines: number[] }
   | { ok: false; problems: ComponentImportProblem[] };
 
 const COMPONENT_PATH = /^components\[(\d+)\](?:\.(.+))?$/;
@@ -32,7 +32,7 @@ export function importComponentCsv(doc: DriveDocument, csvText: string): Compone
   if (!read.ok) return { ok: false, problems: read.problems };
   const candidate: DriveDocument = { ...doc, components: read.components };
   try {
-    return { ok: true, document: parseDriveDocument(candidate) };
+    return { ok: true, document: parseDriveDocument(candidate), lines: read.lines };
   } catch (error) {
     if (!(error instanceof DriveDocumentError)) throw error;
     const problems = error.issues.map((issue): ComponentImportProblem => {

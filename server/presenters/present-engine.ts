@@ -1,0 +1,22 @@
+// Engine → DTO: what leaves the server for the engines table and the engine page.
+import type { BearingGeometry } from '../../shared/drive/bearing-table';
+import type { DriveDocument } from '../../shared/drive/types';
+import type { EngineDetailDto, EngineSummaryDto } from '../../shared/schemas/engines-api';
+import type { Engine } from '../models/engine';
+import { firingOrderFromText } from '../services/engine-drive';
+import { computeEngine } from '../services/engine-kinematics';
+
+/** One row of the engines table. */
+export function presentEngineSummary(engine: Engine, belts: number, components: number): EngineSummaryDto {
+  return {
+    id: engine.id, name: engine.name, cylinders: engine.cylinders, firingOrder: firingOrderFromText(engine.firingOrder),
+    idleRpm: engine.idleRpm, belts, components, updatedAt: engine.updatedAt.toISOString(),
+  };
+}
+
+/** The engine page: the document, the notes, and what the kinematics compute from it. */
+export function presentEngine(engine: Engine, doc: DriveDocument & { notes?: string }, shopTable: readonly BearingGeometry[]): EngineDetailDto {
+  const { notes: _notes, ...document } = doc;
+  void _notes;
+  return { id: engine.id, ...document, notes: engine.notes, updatedAt: engine.updatedAt.toISOString(), computed: computeEngine(document, shopTable) };
+}
