@@ -7,7 +7,7 @@
 import type { BearingFactors, CandidateLine, ComponentCandidates, ComponentSpec, DriveDocument, Fault, RotatingRing } from './types';
 import { bearingFactors } from './bearing-factors';
 import type { BearingTable } from './bearing-table';
-import { beltPassOrder, speedRatio } from './kinematics';
+import { beltPassOrder, beltStages, speedRatio } from './kinematics';
 import { absoluteWindow, relativeWindow, windowHoldsMultiple, type DriveRegime, type LineRole } from './line-windows';
 
 /** Options of `candidateLines`. */
@@ -41,15 +41,16 @@ export function windowOf(
   regime: DriveRegime,
   rotatingRing: RotatingRing,
   knownSlip?: number,
+  beltStages = 1,
 ): [number, number] {
   const outer = rotatingRing === 'outer';
   if (line.sideband === 0 || line.modulatorOrder === undefined) {
-    return absoluteWindow(line.nominalOrder, relativeWindow(line.role, regime, outer, knownSlip));
+    return absoluteWindow(line.nominalOrder, relativeWindow(line.role, regime, outer, knownSlip, beltStages));
   }
   const carrierNominal = line.nominalOrder - line.sideband * line.modulatorOrder;
-  const carrier = absoluteWindow(carrierNominal, relativeWindow(line.role, regime, outer, knownSlip));
+  const carrier = absoluteWindow(carrierNominal, relativeWindow(line.role, regime, outer, knownSlip, beltStages));
   const modRole: LineRole = line.fault === 'ball' ? 'fixed' : 'shaft';
-  const mod = absoluteWindow(line.modulatorOrder, relativeWindow(modRole, regime, outer, knownSlip));
+  const mod = absoluteWindow(line.modulatorOrder, relativeWindow(modRole, regime, outer, knownSlip, beltStages));
   return line.sideband > 0
     ? [carrier[0] + mod[0], carrier[1] + mod[1]]
     : [carrier[0] - mod[1], carrier[1] - mod[0]];
@@ -120,25 +121,24 @@ export function candidateLines(drive: DriveDocument, options: CandidateOptions =
     const regime = driveRegime(component);
     const bearing = bearingFactors(component.bearing, options.shopTable);
     const slip = options.knownSlip?.[component.name];
+    const stages = beltStages(drive, component.name);
     const lines = componentSeeds(ratio, bearing.factors, bearing.rotatingRing, harmonics).map((seed) =>
-      finishLine(seed, windowOf(seed, regime, bearing.rotatingRing, slip), ratio, seed.spectrum === 'orders' ? padOrders : padEnvelope));
+      finishLine(seed, windowOf(seed, regime, bearing.rotatingRing, slip, stages), ratio, seed.spectrum === 'orders' ? padOrders : padEnvelope));
     out.push({
       component: component.name, target: 'component', kind: component.kind, ratio, factors: bearing.factors,
-      approximate: bearing.approximate, rotatingRing: bearing.rotatingRing, regime, lines,
+      approximate: bearing.approximate, rotatingRing: bearing.rotatingRing, regime, beltStages: stages, lines,
     });
   }
   for (const belt of drive.belts) {
     const order = beltPassOrder(drive, belt.name);
-    const driverIsCrank = drive.components.some((c) => c.kind === 'crankshaft' && c.name.toLowerCase() === belt.driver.toLowerCase());
+    // A belt driven by a belt-driven part inherits that part's creep as well.
+    const stages = beltStages(drive, belt.driver) + 1;
     const lines: CandidateLine[] = [];
     for (let k = 1; k <= harmonics; k += 1) {
-      const rel = relativeWindow('belt', 'belt');
-      // A belt driven by a belt-driven part inherits that part's creep as well.
-      const below = driverIsCrank ? rel.below : rel.below - 0.03;
       const seed: LineSeed = { label: `belt pass ${k}x`, fault: 'belt', harmonic: k, sideband: 0, nominalOrder: k * order, role: 'belt', spectrum: 'orders' };
-      lines.push(finishLine(seed, absoluteWindow(k * order, { below, above: rel.above }), order, padOrders));
+      lines.push(finishLine(seed, absoluteWindow(k * order, relativeWindow('belt', 'belt', false, undefined, stages)), order, padOrders));
     }
-    out.push({ component: belt.name, target: 'belt', kind: 'belt', ratio: order, approximate: false, rotatingRing: 'inner', regime: 'belt', lines });
+    out.push({ component: belt.name, target: 'belt', kind: 'belt', ratio: order, approximate: false, rotatingRing: 'inner', regime: 'belt', beltStages: stages - 1, lines });
   }
   return out;
 }

@@ -62,6 +62,26 @@ export function turnsBackwards(drive: DriveDocument, componentName: string): boo
   return flips % 2 === 1;
 }
 
+/**
+ * Number of friction-belt stages between the crank and a component (each adds belt creep):
+ * 0 for the crankshaft and fixed-ratio parts, 1 on a crank-driven belt, 2 on a belt driven by a
+ * belt-driven part, and so on.
+ */
+export function beltStages(drive: DriveDocument, componentName: string): number {
+  let stages = 0;
+  let component = findComponent(drive, componentName);
+  const seen = new Set<string>();
+  while (component && component.kind !== 'crankshaft' && component.fixedRatio === undefined && component.belt) {
+    const key = component.name.toLowerCase();
+    if (seen.has(key)) break;
+    seen.add(key);
+    stages += 1;
+    const belt = findBelt(drive, component.belt);
+    component = belt ? findComponent(drive, belt.driver) : undefined;
+  }
+  return stages;
+}
+
 function beltOrThrow(drive: DriveDocument, beltName: string): BeltSpec {
   const belt = findBelt(drive, beltName);
   if (!belt) throw new RangeError(`no belt named "${beltName}" in drive "${drive.name}"`);

@@ -36,11 +36,14 @@ const BELT_PASS: RelativeWindow = { below: -0.02, above: 0.005 };
 /**
  * The relative window of a line of the given role. `outerRingTurns` selects the idler's wider
  * turning-race allowance. `knownSlip` (fraction, positive = slower), when the part's shaft line
- * gave it, replaces the creep allowance by that slip.
+ * gave it, replaces the creep allowance by that slip. `beltStages` (friction belts between the
+ * crank and the part, or the belt's driver for a belt-pass line) multiplies the creep allowance.
  */
-export function relativeWindow(role: LineRole, regime: DriveRegime, outerRingTurns = false, knownSlip?: number): RelativeWindow {
-  if (role === 'belt') return BELT_PASS;
-  const creep = SHAFT[regime];
+export function relativeWindow(role: LineRole, regime: DriveRegime, outerRingTurns = false, knownSlip?: number, beltStages = 1): RelativeWindow {
+  if (role === 'belt') return { below: BELT_PASS.below + SHAFT.belt.below * Math.max(0, beltStages - 1), above: BELT_PASS.above };
+  // Creep compounds over belt stages (a part on a belt driven by a belt-driven part creeps twice).
+  const base = SHAFT[regime];
+  const creep = regime === 'belt' ? { below: base.below * Math.max(1, beltStages), above: base.above } : base;
   if (knownSlip !== undefined) {
     const speed = 1 - knownSlip;
     // A measured shaft line leaves only the measurement's own spread (a fixed-ratio-like window).

@@ -94,5 +94,7 @@ export interface ComponentCandidates {
   rotatingRing: RotatingRing;
   /** How the part is driven: friction belt, fixed ratio (gear, cam, timing belt) or loosely (overrunning, fan clutch). */
   regime: 'belt' | 'fixed' | 'loose';
+  /** Friction-belt stages between the crank and the part (for a belt: its driver); each adds creep. */
+  beltStages: number;
   lines: CandidateLine[];
 }

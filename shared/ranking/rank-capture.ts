@@ -1,10 +1,19 @@
 /**
- * Ranks the drive's parts for one capture (DESIGN.md "Ranking suspects"). Interim version: the
- * entry point's signature is final; the scoring is being filled in.
+ * Ranks the drive's parts for one capture (DESIGN.md "Ranking suspects", issue 11 item 4): for
+ * each (part, fault) its candidate lines are matched within their windows (shaft lines in the raw
+ * order spectrum, bearing lines in the envelope spectra, belt lines in both), the whole pattern is
+ * scored 0–1, and the entries are sorted by score, ties by name.
  */
-import type { RankingEntry, RankingInput } from '../analysis/types';
-import type { DriveDocument } from '../drive/types';
+import type { MatchedLine, OrderSpectrum, RankingEntry, RankingInput } from '../analysis/types';
 import type { BearingTable } from '../drive/bearing-table';
+import { candidateLines, windowOf } from '../drive/candidate-lines';
+import { relativeWindow } from '../drive/line-windows';
+import type { CandidateLine, ComponentCandidates, DriveDocument, Fault } from '../drive/types';
+import { estimateSlip, type SlipEstimate } from './estimate-slip';
+import { evidenceSentence } from './evidence';
+import { patternsCoincide, separationAdvice } from './indistinguishable';
+import { emptyMatch, matchPattern, type PatternMatch, type PatternSearch } from './match-pattern';
+import { topOrder } from './spectrum-lines';
 
 /** Options of `rankCapture`. */
 export interface RankOptions {
@@ -12,10 +21,144 @@ export interface RankOptions {
   shopTable?: BearingTable;
 }
 
+const COMPONENT_FAULTS: Fault[] = ['shaft', 'outer_race', 'inner_race', 'ball', 'cage'];
+/** Evidence total at which the score reaches 1 − 1/e ≈ 0.63. */
+const SCORE_SCALE = 1.5;
+/** Minimum score for an entry to be considered when naming indistinguishable parts. */
+const INDISTINGUISHABLE_MIN_SCORE = 0.15;
+
+interface Scored {
+  candidates: ComponentCandidates;
+  fault: Fault;
+  match: PatternMatch;
+  slip: SlipEstimate | null;
+  score: number;
+  entry: RankingEntry;
+}
+
+function searchFor(cc: ComponentCandidates, fault: Fault, cyclesAveraged: number, slip?: number): PatternSearch {
+  const relocate = (l: CandidateLine): CandidateLine => (slip === undefined ? l : { ...l, window: windowOf(l, cc.regime, cc.rotatingRing, slip, cc.beltStages) });
+  const lines = cc.lines.filter((l) => l.fault === fault).map(relocate);
+  const carriers = lines.filter((l) => l.sideband === 0);
+  const sidebands = lines.filter((l) => l.sideband !== 0);
+  const role = carriers[0]?.role ?? 'shaft';
+  let relative = relativeWindow(role, cc.regime, cc.rotatingRing === 'outer', slip, cc.beltStages);
+  if (fault === 'belt' && carriers[0]) {
+    const [lo, hi] = carriers[0].window;
+    relative = { below: lo / carriers[0].nominalOrder - 1, above: hi / carriers[0].nominalOrder - 1 };
+  }
+  let modulatorWindow: [number, number] | undefined;
+  if (sidebands.length > 0) {
+    const modulator = fault === 'ball'
+      ? cc.lines.find((l) => l.fault === 'cage' && l.harmonic === 1)
+      : cc.lines.find((l) => l.fault === 'shaft' && l.harmonic === 1);
+    if (modulator) modulatorWindow = relocate(modulator).window;
+  }
+  return { carriers, sidebands, modulatorWindow, relative, cyclesAveraged };
+}
+
+function spectraFor(fault: Fault, input: RankingInput): OrderSpectrum[] {
+  const envelopes = input.envelopes.map((b) => b.spectrum);
+  if (fault === 'shaft') return [input.orders];
+  if (fault === 'belt') return [input.orders, ...envelopes];
+  return envelopes;
+}
+
+function matchFault(cc: ComponentCandidates, fault: Fault, input: RankingInput, slip: SlipEstimate | null): PatternMatch {
+  const spectra = spectraFor(fault, input);
+  if (spectra.length === 0) return emptyMatch(searchFor(cc, fault, input.cyclesAveraged));
+  const full = matchPattern(spectra, searchFor(cc, fault, input.cyclesAveraged));
+  if (!slip || fault === 'shaft' || cc.regime === 'fixed') return full;
+  // The part's measured slip narrows its bearing windows; prefer that reading unless it loses most of the evidence.
+  const narrowed = matchPattern(spectra, searchFor(cc, fault, input.cyclesAveraged, slip.slip));
+  return narrowed.total >= 0.6 * full.total && narrowed.total > 0 ? { ...narrowed, total: narrowed.total * 1.1 } : full;
+}
+
+function toMatched(match: PatternMatch): MatchedLine[] {
+  return match.lines
+    .slice()
+    .sort((a, b) => b.found.snrDb - a.found.snrDb)
+    .map((l) => ({
+      label: l.line.label, spectrum: l.line.spectrum === 'orders' && l.line.fault !== 'belt' ? 'orders' : (l.line.fault === 'belt' && match.spectrumIndex > 0 ? 'envelope' : l.line.spectrum),
+      nominalOrder: l.line.nominalOrder, order: l.found.order, amplitude: l.found.amplitude, snrDb: l.found.snrDb, cycleGain: l.cycleGain,
+    }));
+}
+
+function nearShaftHarmonic(cc: ComponentCandidates, fault: Fault): number | null {
+  const first = cc.lines.find((l) => l.fault === fault && l.harmonic === 1 && l.sideband === 0);
+  if (!first || !first.nearShaftHarmonic || fault === 'shaft' || fault === 'belt') return null;
+  return Math.max(1, Math.round(first.nominalOrder / cc.ratio));
+}
+
+function scoreOne(cc: ComponentCandidates, fault: Fault, input: RankingInput, slip: SlipEstimate | null): Scored {
+  const match = matchFault(cc, fault, input, slip);
+  const total = match.total * (1 + 0.15 * Math.min(2, match.confirmations));
+  const score = Math.round(1000 * (1 - Math.exp(-total / SCORE_SCALE))) / 1000;
+  const matched = toMatched(match);
+  const strongest = match.lines.filter((l) => l.line.sideband === 0).sort((a, b) => b.found.snrDb - a.found.snrDb)[0];
+  const fundamental = cc.lines.find((l) => l.fault === fault && l.sideband === 0 && l.harmonic === 1);
+  const shaftSlip = fault === 'shaft' && strongest ? 1 - strongest.found.order / strongest.line.nominalOrder : slip?.slip;
+  const spectrumWord = fault === 'shaft' || (fault === 'belt' && match.spectrumIndex === 0) ? 'order spectrum' : 'envelope';
+  const evidence = evidenceSentence({
+    component: cc.component, fault, match, slip: fault === 'shaft' ? null : slip, approximate: cc.approximate && fault !== 'belt' && fault !== 'shaft',
+    nearShaftHarmonic: nearShaftHarmonic(cc, fault), spectrumWord,
+  });
+  const entry: RankingEntry = {
+    component: cc.component,
+    target: cc.target,
+    fault,
+    order: strongest ? strongest.found.order : (fundamental?.nominalOrder ?? 0),
+    nominalOrder: strongest ? strongest.line.nominalOrder : (fundamental?.nominalOrder ?? 0),
+    score,
+    slipPct: shaftSlip === undefined || fault === 'belt' ? null : Math.round(1000 * shaftSlip) / 10,
+    evidence,
+    indistinguishableFrom: [],
+    approximate: cc.approximate && fault !== 'shaft' && fault !== 'belt',
+    matched,
+  };
+  return { candidates: cc, fault, match, slip, score, entry };
+}
+
+function markIndistinguishable(scored: Scored[], input: RankingInput): void {
+  const res = Math.max(input.orders.resolution, ...input.envelopes.map((b) => b.spectrum.resolution));
+  const maxOrder = Math.max(topOrder(input.orders), ...input.envelopes.map((b) => topOrder(b.spectrum)));
+  const live = scored.filter((s) => s.score >= INDISTINGUISHABLE_MIN_SCORE && s.candidates.target === 'component');
+  for (const a of live) {
+    for (const b of scored) {
+      if (b === a || b.candidates.target !== 'component' || b.candidates.component === a.candidates.component || b.fault !== a.fault) continue;
+      if (patternsCoincide(a.candidates, b.candidates, a.fault, res, maxOrder)) {
+        if (!a.entry.indistinguishableFrom.includes(b.entry.component)) a.entry.indistinguishableFrom.push(b.entry.component);
+        if (!b.entry.indistinguishableFrom.includes(a.entry.component)) b.entry.indistinguishableFrom.push(a.entry.component);
+      }
+    }
+  }
+  for (const s of scored) {
+    if (s.entry.indistinguishableFrom.length > 0) s.entry.evidence += `; ${separationAdvice(s.entry.indistinguishableFrom)}`;
+  }
+}
+
 /**
- * One entry per (component, fault) and per belt, sorted by score (0–1) descending, ties by name.
+ * Ranks every (component, fault) of the drive and every belt for one capture. Returns one entry
+ * each, sorted by score (0–1) descending, ties by component name then fault. Without envelope
+ * spectra the bearing faults score 0. Throws RangeError when the input holds no order spectrum.
  */
 export function rankCapture(drive: DriveDocument, input: RankingInput, options: RankOptions = {}): RankingEntry[] {
-  void drive; void input; void options;
-  return [];
+  if (!input.orders || !(input.orders.resolution > 0) || input.orders.amplitude.length !== input.orders.floor.length) {
+    throw new RangeError('ranking needs an order spectrum with a positive resolution and a floor of the same length');
+  }
+  const envRes = input.envelopes[0]?.spectrum.resolution ?? input.orders.resolution;
+  const all = candidateLines(drive, { shopTable: options.shopTable, resolution: { orders: input.orders.resolution, envelope: envRes } });
+  const scored: Scored[] = [];
+  for (const cc of all) {
+    if (cc.target === 'belt') {
+      scored.push(scoreOne(cc, 'belt', input, null));
+      continue;
+    }
+    const slip = cc.regime === 'fixed' ? null : estimateSlip(cc, input.orders);
+    for (const fault of COMPONENT_FAULTS) scored.push(scoreOne(cc, fault, input, slip));
+  }
+  markIndistinguishable(scored, input);
+  return scored
+    .map((s) => s.entry)
+    .sort((a, b) => b.score - a.score || a.component.localeCompare(b.component) || a.fault.localeCompare(b.fault));
 }

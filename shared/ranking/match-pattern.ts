@@ -1,0 +1,153 @@
+/**
+ * Matches one (part, fault) line pattern against a capture's spectra. A real fault puts its
+ * harmonics at exact multiples of one measured fundamental (whatever the slip), so the search
+ * tries each fundamental that a local maximum in any harmonic's window suggests and scores the
+ * whole comb it implies: prominence of each harmonic, sidebands at the modulating order, less for
+ * lines on the engine's 0.5-order comb unless the rest of the pattern stands off it.
+ */
+import type { OrderSpectrum } from '../analysis/types';
+import type { CandidateLine } from '../drive/types';
+import { cycleCombGain, lineNear, lineStrength, localMaxima, onEngineComb, topOrder, type FoundLine } from './spectrum-lines';
+
+/** One line of a matched pattern, with what the scoring made of it. */
+export interface PatternLine {
+  line: CandidateLine;
+  found: FoundLine;
+  onComb: boolean;
+  cycleGain: number;
+  weight: number;
+}
+
+/** The best reading of one pattern in one set of spectra. */
+export interface PatternMatch {
+  /** Unbounded evidence total (0 when nothing matched); the score maps it to 0–1. */
+  total: number;
+  /** Measured fundamental (the 1× of the fault's carrier) in orders. */
+  fundamental: number;
+  /** Harmonics found at ≥ 6 dB, and those of them off the engine comb. */
+  harmonicsFound: number;
+  offCombFound: number;
+  sidebandsFound: number;
+  /** Index of the spectrum the pattern was read from, and how many other spectra confirm it. */
+  spectrumIndex: number;
+  confirmations: number;
+  lines: PatternLine[];
+}
+
+/** Settings of a pattern search. */
+export interface PatternSearch {
+  carriers: CandidateLine[];
+  sidebands: CandidateLine[];
+  /** Window of the modulating order (part shaft speed, or cage speed), for sidebands. */
+  modulatorWindow?: [number, number];
+  /** Relative window of the fundamental (below, above) used for the plausibility of the deviation. */
+  relative: { below: number; above: number };
+  cyclesAveraged: number;
+}
+
+const FOUND_DB = 6;
+const HARMONIC_WEIGHT = [1, 0.8, 0.6, 0.5];
+const SIDEBAND_WEIGHT = 0.25;
+
+function combWeight(offCombFound: number): number {
+  if (offCombFound >= 2) return 0.8;
+  if (offCombFound === 1) return 0.5;
+  return 0.2;
+}
+
+function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spectrumIndex: number): PatternMatch {
+  const res = spectrum.resolution;
+  const top = topOrder(spectrum);
+  const carriers: { line: CandidateLine; found: FoundLine; h: number }[] = [];
+  for (const line of search.carriers) {
+    const at = line.harmonic * f;
+    if (at > top) continue;
+    const found = lineNear(spectrum, at, 0.75 * res + 0.004 * at);
+    if (found && found.snrDb >= 3) carriers.push({ line, found, h: line.harmonic });
+  }
+  const sidebands: { line: CandidateLine; found: FoundLine }[] = [];
+  if (search.modulatorWindow) {
+    const [mLo, mHi] = search.modulatorWindow;
+    for (const sb of search.sidebands) {
+      const carrier = carriers.find((c) => c.h === sb.carrierHarmonic && c.found.snrDb >= FOUND_DB);
+      if (!carrier) continue;
+      const p = carrier.found.order;
+      const lo = sb.sideband > 0 ? p + mLo : p - mHi;
+      const hi = sb.sideband > 0 ? p + mHi : p - mLo;
+      if (hi > top || lo <= 0) continue;
+      const found = localMaxima(spectrum, lo - 0.75 * res, hi + 0.75 * res)[0];
+      if (found && found.snrDb >= 3) sidebands.push({ line: sb, found });
+    }
+  }
+  const gain = (o: number) => cycleCombGain(o, search.cyclesAveraged);
+  const isComb = (o: number) => onEngineComb(o, res) || gain(o) > 0.3;
+  const offCombFound = carriers.filter((c) => c.found.snrDb >= FOUND_DB && !isComb(c.found.order)).length;
+  const cw = combWeight(offCombFound);
+  const lines: PatternLine[] = [];
+  let total = 0;
+  for (const c of carriers) {
+    const onComb = isComb(c.found.order);
+    const weight = (HARMONIC_WEIGHT[c.h - 1] ?? 0.4) * (onComb ? cw : 1);
+    total += weight * lineStrength(c.found.snrDb);
+    lines.push({ line: c.line, found: c.found, onComb, cycleGain: gain(c.found.order), weight });
+  }
+  for (const s of sidebands) {
+    const onComb = isComb(s.found.order);
+    const weight = SIDEBAND_WEIGHT * (onComb ? cw : 1);
+    total += weight * lineStrength(s.found.snrDb);
+    lines.push({ line: s.line, found: s.found, onComb, cycleGain: gain(s.found.order), weight });
+  }
+  // Plausibility of the fundamental's deviation from nominal: full in the middle of the window,
+  // down to 0.7 at its edges, so that of two near-equal ratios the closer one is preferred.
+  const nominal = search.carriers.find((c) => c.harmonic === 1)?.nominalOrder ?? search.carriers[0].nominalOrder / search.carriers[0].harmonic;
+  const dev = f / nominal - 1;
+  const centre = (search.relative.below + search.relative.above) / 2;
+  const half = Math.max(1e-6, (search.relative.above - search.relative.below) / 2);
+  const plausibility = 1 - 0.3 * Math.min(1, ((dev - centre) / half) ** 2);
+  return {
+    total: total * plausibility,
+    fundamental: f,
+    harmonicsFound: carriers.filter((c) => c.found.snrDb >= FOUND_DB).length,
+    offCombFound,
+    sidebandsFound: sidebands.filter((s) => s.found.snrDb >= FOUND_DB).length,
+    spectrumIndex,
+    confirmations: 0,
+    lines,
+  };
+}
+
+/** An empty match (nothing in any window). */
+export function emptyMatch(search: PatternSearch): PatternMatch {
+  const first = search.carriers[0];
+  return { total: 0, fundamental: first ? first.nominalOrder / first.harmonic : 0, harmonicsFound: 0, offCombFound: 0, sidebandsFound: 0, spectrumIndex: -1, confirmations: 0, lines: [] };
+}
+
+/**
+ * Best reading of the pattern over the given spectra (e.g. the envelope bands), with the number
+ * of other spectra in which the same fundamental's harmonics also stand ≥ 6 dB above the floor.
+ */
+export function matchPattern(spectra: readonly OrderSpectrum[], search: PatternSearch): PatternMatch {
+  let best = emptyMatch(search);
+  spectra.forEach((spectrum, index) => {
+    const res = spectrum.resolution;
+    const tried: number[] = [];
+    for (const line of search.carriers) {
+      const [lo, hi] = line.window;
+      for (const peak of localMaxima(spectrum, lo - res, hi + res, 3)) {
+        const f = peak.order / line.harmonic;
+        if (tried.some((t) => Math.abs(t - f) < 0.25 * res / line.harmonic)) continue;
+        tried.push(f);
+        const m = evaluate(spectrum, f, search, index);
+        if (m.total > best.total) best = m;
+      }
+    }
+  });
+  if (best.spectrumIndex >= 0) {
+    best.confirmations = spectra.filter((spectrum, index) => index !== best.spectrumIndex && search.carriers.some((c) => {
+      const at = c.harmonic * best.fundamental;
+      const found = at <= topOrder(spectrum) ? lineNear(spectrum, at, 0.75 * spectrum.resolution + 0.004 * at) : null;
+      return found !== null && found.snrDb >= FOUND_DB;
+    })).length;
+  }
+  return best;
+}

@@ -1,0 +1,96 @@
+/**
+ * Reading lines out of an order spectrum for the ranking: local maxima inside a window, their
+ * interpolated order, SNR over the running-median floor, and whether they sit on the engine's
+ * 0.5-order comb. Spectra follow shared/analysis/types.ts: bin k is at order k × resolution,
+ * amplitudes are Hann-windowed power averages (so a Gaussian fit over three bins places a peak).
+ */
+import type { OrderSpectrum } from '../analysis/types';
+
+/** A line found in a spectrum. */
+export interface FoundLine {
+  order: number;
+  amplitude: number;
+  /** 20·log10(peak / floor). */
+  snrDb: number;
+  bin: number;
+}
+
+/** Interpolated order of a local maximum at bin k (Gaussian fit through three bins, Hann-windowed spectra). */
+export function interpolateOrder(spectrum: OrderSpectrum, k: number): number {
+  const a = spectrum.amplitude;
+  if (k <= 0 || k >= a.length - 1) return k * spectrum.resolution;
+  const l = Math.log(Math.max(a[k - 1], 1e-300));
+  const c = Math.log(Math.max(a[k], 1e-300));
+  const r = Math.log(Math.max(a[k + 1], 1e-300));
+  const den = l - 2 * c + r;
+  const delta = den < 0 ? Math.max(-0.5, Math.min(0.5, (0.5 * (l - r)) / den)) : 0;
+  return (k + delta) * spectrum.resolution;
+}
+
+function snrDbAt(spectrum: OrderSpectrum, k: number): number {
+  const floor = spectrum.floor[k];
+  const amp = spectrum.amplitude[k];
+  if (!(floor > 0)) return amp > 0 ? 60 : 0;
+  return 20 * Math.log10(Math.max(amp, 1e-300) / floor);
+}
+
+/**
+ * Every local maximum whose bin centre lies in [lo, hi], strongest SNR first. A bin is a local
+ * maximum when it is at least as high as both neighbours (neighbours outside the window count).
+ */
+export function localMaxima(spectrum: OrderSpectrum, lo: number, hi: number, minSnrDb = -Infinity): FoundLine[] {
+  const a = spectrum.amplitude;
+  const res = spectrum.resolution;
+  const k0 = Math.max(1, Math.ceil(lo / res - 1e-9));
+  const k1 = Math.min(a.length - 2, Math.floor(hi / res + 1e-9));
+  const out: FoundLine[] = [];
+  for (let k = k0; k <= k1; k += 1) {
+    if (a[k] < a[k - 1] || a[k] < a[k + 1]) continue;
+    const snrDb = snrDbAt(spectrum, k);
+    if (snrDb < minSnrDb) continue;
+    out.push({ order: interpolateOrder(spectrum, k), amplitude: a[k], snrDb, bin: k });
+  }
+  return out.sort((x, y) => y.snrDb - x.snrDb);
+}
+
+/** The strongest local maximum within ±tol of an order (tol at least one bin), or null. */
+export function lineNear(spectrum: OrderSpectrum, order: number, tol: number): FoundLine | null {
+  const t = Math.max(tol, spectrum.resolution);
+  const found = localMaxima(spectrum, order - t, order + t);
+  return found.length > 0 ? found[0] : null;
+}
+
+/** Highest order a spectrum holds (with a bin of margin for the neighbour test). */
+export function topOrder(spectrum: OrderSpectrum): number {
+  return (spectrum.amplitude.length - 2) * spectrum.resolution;
+}
+
+/**
+ * Whether a measured line sits on the engine's comb: within 0.6 bin of a multiple of 0.5 order,
+ * where the engine's own firing, valve and injector events put lines (locked to crank angle, so
+ * exactly on the multiple; an interpolated peak lands within a fraction of a bin of it).
+ */
+export function onEngineComb(order: number, resolution: number): boolean {
+  const nearest = Math.round(order / 0.5) * 0.5;
+  if (nearest <= 0) return false;
+  return Math.abs(order - nearest) <= 0.6 * resolution;
+}
+
+/**
+ * Comb gain of the 720° synchronous average over N cycles for a line at `order`
+ * (REFERENCES.md §3): |sin(Nπx) / (N sin(πx))| with x = distance of 2·order to the nearest
+ * integer. Every 0.5-order multiple passes with gain 1; above about 0.3 the average cannot separate
+ * the line from the engine's own cycle.
+ */
+export function cycleCombGain(order: number, cycles: number): number {
+  if (!(cycles >= 1)) return 1;
+  const twice = 2 * order;
+  const x = Math.abs(twice - Math.round(twice));
+  if (x < 1e-12) return 1;
+  return Math.abs(Math.sin(cycles * Math.PI * x) / (cycles * Math.sin(Math.PI * x)));
+}
+
+/** Maps an SNR in dB to a strength 0–1: nothing below 3 dB, full at 21 dB and above. */
+export function lineStrength(snrDb: number): number {
+  return Math.max(0, Math.min(1, (snrDb - 3) / 18));
+}
