@@ -1,5 +1,6 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { createBrowserRouter, redirect, type RouteObject } from 'react-router-dom';
+import { LoadingState } from '../components/ui/spinner';
 import { paths } from './paths';
 import { AppLayout, appLayoutLoader } from './routes/app-layout';
 import { BearingsRoute } from './routes/bearings';
@@ -32,6 +33,8 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
     {
       element: <RootLayout />,
       errorElement: <RouteError />,
+      // Shown while the first page's loaders run (the session check on opening the app).
+      hydrateFallbackElement: <LoadingState label="Opening Crankwise…" className="min-h-screen" />,
       children: [
         {
           element: <PublicLayout />,

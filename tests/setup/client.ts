@@ -1,0 +1,33 @@
+import { cleanup } from '@testing-library/react';
+import { afterAll, afterEach, beforeAll, beforeEach, vi } from 'vitest';
+import { dismissToast } from '../../src/components/ui/toast';
+import { resetCsrfToken } from '../../src/lib/api-client';
+import { server } from '../src/helpers/msw-server';
+
+// Client tests (jsdom): the network is MSW and any request without a handler fails the test;
+// an unexpected console.error fails the test too (React warnings, act() misuse, failed renders).
+
+beforeAll(() => {
+  server.listen({ onUnhandledRequest: 'error' });
+  // jsdom has no layout or scrolling; React Router's ScrollRestoration calls this on navigation.
+  window.scrollTo = () => {};
+});
+
+let consoleError: ReturnType<typeof vi.spyOn>;
+beforeEach(() => {
+  consoleError = vi.spyOn(console, 'error');
+});
+
+afterEach(() => {
+  cleanup();
+  server.resetHandlers();
+  resetCsrfToken();
+  dismissToast();
+  const calls = consoleError.mock.calls;
+  consoleError.mockRestore();
+  if (calls.length > 0) {
+    throw new Error(`console.error was called during the test:\n${calls.map((args) => args.map(String).join(' ')).join('\n')}`);
+  }
+});
+
+afterAll(() => server.close());

@@ -1,0 +1,46 @@
+import { screen, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { ROLES } from '../../../shared/auth/roles';
+import { makeUser } from '../helpers/factories';
+import { renderApp } from '../helpers/render-app';
+
+async function navLinks(): Promise<string[]> {
+  const nav = await screen.findByRole('navigation', { name: 'Main' });
+  return within(nav)
+    .getAllByRole('link')
+    .map((link) => link.textContent ?? '');
+}
+
+describe('app navigation', () => {
+  it('shows Team, Outbox and Shop setup to an admin', async () => {
+    renderApp('/cases', { user: makeUser({ role: 'admin' }) });
+    expect(await navLinks()).toEqual(['Cases', 'Drive library', 'Bearings', 'Capture planner', 'Team', 'Outbox', 'Shop setup']);
+  });
+
+  it.each(ROLES.filter((role) => role !== 'admin'))('shows only the workbench sections to a %s', async (role) => {
+    renderApp('/cases', { user: makeUser({ role }) });
+    const links = await navLinks();
+    expect(links).toEqual(['Cases', 'Drive library', 'Bearings', 'Capture planner']);
+    expect(links).not.toContain('Team');
+  });
+
+  it('sends a visitor without a session to sign-in and remembers the page asked for', async () => {
+    const { router } = renderApp('/bearings');
+    expect(await screen.findByRole('heading', { name: 'Sign in' })).toBeTruthy();
+    expect(router.state.location.pathname).toBe('/sign-in');
+    expect(router.state.location.search).toBe('?next=%2Fbearings');
+  });
+
+  it('tells a technician who opens the Team address that it is for admins', async () => {
+    renderApp('/team', { user: makeUser({ role: 'tech' }) });
+    expect(await screen.findByText('Not available for your role')).toBeTruthy();
+    // The layout stays: the navigation is still there to go elsewhere.
+    expect(screen.getByRole('navigation', { name: 'Main' })).toBeTruthy();
+  });
+
+  it('shows the safety note under the pages and the full cautions on the capture planner', async () => {
+    renderApp('/capture-planner', { user: makeUser({ role: 'tech' }) });
+    expect(await screen.findByText(/Electric cooling fans can start on their own/)).toBeTruthy();
+    expect(screen.getByText(/keep hands, tools, leads, clothing and hair away/)).toBeTruthy();
+  });
+});
