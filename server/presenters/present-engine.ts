@@ -4,7 +4,7 @@ import type { DriveDocument } from '../../shared/drive/types';
 import type { EngineDetailDto, EngineSummaryDto } from '../../shared/schemas/engines-api';
 import type { Engine } from '../models/engine';
 import { firingOrderFromText } from '../services/engine-drive';
-import { computeEngine } from '../services/engine-kinematics';
+import { computeEngine } from '../../shared/drive-io/engine-kinematics';
 
 /** One row of the engines table. */
 export function presentEngineSummary(engine: Engine, belts: number, components: number): EngineSummaryDto {

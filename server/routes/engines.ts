@@ -17,12 +17,14 @@ import type { RouteRow } from './route-row';
 const CSV_LIMIT_BYTES = 1024 * 1024;
 const owned = (res: { locals: Record<string, unknown> }) => res.locals.owned as Engine;
 
-/** A CSV body as text/csv (or text/plain), or as the `file` field of a multipart form. */
+/** A CSV body as text/csv (or text/plain), as the `file` field of a multipart form, or as JSON `{ "csv": "…" }`. */
 const readCsvBody: RequestHandler[] = [
   express.text({ type: ['text/csv', 'text/plain', 'application/csv'], limit: CSV_LIMIT_BYTES }),
   multer({ storage: multer.memoryStorage(), limits: { fileSize: CSV_LIMIT_BYTES, files: 1 } }).single('file'),
   (req, res, next) => {
-    const text = req.file ? req.file.buffer.toString('utf8') : typeof req.body === 'string' ? req.body : undefined;
+    const body: unknown = req.body;
+    const fromJson = body && typeof body === 'object' && typeof (body as { csv?: unknown }).csv === 'string' ? (body as { csv: string }).csv : undefined;
+    const text = req.file ? req.file.buffer.toString('utf8') : typeof body === 'string' ? body : fromJson;
     if (text === undefined || text.trim() === '') {
       next(new AppError(400, 'validation_failed', 'Send the component table as a text/csv body or as the "file" field of a form', [
         { line: 1, message: 'no CSV text received' },

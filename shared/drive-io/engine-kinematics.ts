@@ -3,14 +3,14 @@
  * order and the defect orders (1×, FTF, BPFO, BPFI, 2×BSF as crank orders = ratio × factor), plus
  * the full candidate lines of shared/drive. Bearings resolve as the ranking resolves them: entered
  * factors, geometry, the shop's designation table, then the built-in rows, else the stated rule of
- * thumb (marked approximate).
+ * thumb (marked approximate). Shared so the engine page can show them live while a row is edited.
  */
-import { bearingFactors } from '../../shared/drive/bearing-factors';
-import type { BearingGeometry } from '../../shared/drive/bearing-table';
-import { candidateLines } from '../../shared/drive/candidate-lines';
-import { beltPassOrder, beltSpeedMs, speedRatio, turnsBackwards } from '../../shared/drive/kinematics';
-import type { DriveDocument } from '../../shared/drive/types';
-import type { BeltKinematicsDto, ComponentKinematicsDto, EngineComputedDto } from '../../shared/schemas/engines-api';
+import { bearingFactors } from '../drive/bearing-factors';
+import type { BearingGeometry } from '../drive/bearing-table';
+import { candidateLines } from '../drive/candidate-lines';
+import { beltPassOrder, beltSpeedMs, speedRatio, turnsBackwards } from '../drive/kinematics';
+import type { DriveDocument } from '../drive/types';
+import type { BeltKinematicsDto, ComponentKinematicsDto, EngineComputedDto } from '../schemas/engines-api';
 
 /** Computes the kinematics of a validated drive document against the shop's bearing table. */
 export function computeEngine(doc: DriveDocument, shopTable: readonly BearingGeometry[]): EngineComputedDto {
