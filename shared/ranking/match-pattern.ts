@@ -7,7 +7,7 @@
  */
 import type { OrderSpectrum } from '../analysis/types';
 import type { CandidateLine } from '../drive/types';
-import { cycleCombGain, lineNear, lineStrength, localMaxima, onEngineComb, topOrder, type FoundLine } from './spectrum-lines';
+import { lineCycleGain, lineNear, lineStrength, localMaxima, onEngineComb, topOrder, type FoundLine } from './spectrum-lines';
 
 /** One line of a matched pattern, with what the scoring made of it. */
 export interface PatternLine {
@@ -79,7 +79,7 @@ function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spe
       if (found && found.snrDb >= 3) sidebands.push({ line: sb, found });
     }
   }
-  const gain = (o: number) => cycleCombGain(o, search.cyclesAveraged);
+  const gain = (o: number) => lineCycleGain(o, search.cyclesAveraged);
   const isComb = (o: number) => onEngineComb(o, res) || gain(o) > 0.3;
   const offCombFound = carriers.filter((c) => c.found.snrDb >= FOUND_DB && !isComb(c.found.order)).length;
   const cw = combWeight(offCombFound);

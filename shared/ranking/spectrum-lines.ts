@@ -5,6 +5,7 @@
  * amplitudes are Hann-windowed power averages (so a Gaussian fit over three bins places a peak).
  */
 import type { OrderSpectrum } from '../analysis/types';
+import { cycleCombGain } from '../dsp/comb-gain';
 
 /** A line found in a spectrum. */
 export interface FoundLine {
@@ -77,17 +78,12 @@ export function onEngineComb(order: number, resolution: number): boolean {
 }
 
 /**
- * Comb gain of the 720° synchronous average over N cycles for a line at `order`
- * (REFERENCES.md §3): |sin(Nπx) / (N sin(πx))| with x = distance of 2·order to the nearest
- * integer. Every 0.5-order multiple passes with gain 1; above about 0.3 the average cannot separate
- * the line from the engine's own cycle.
+ * Comb gain of the 720° synchronous average for a line at `order` (REFERENCES.md §3, via
+ * shared/dsp/comb-gain.ts); 1 when no whole cycle was averaged. Above about 0.3 the average
+ * cannot separate the line from the engine's own cycle.
  */
-export function cycleCombGain(order: number, cycles: number): number {
-  if (!(cycles >= 1)) return 1;
-  const twice = 2 * order;
-  const x = Math.abs(twice - Math.round(twice));
-  if (x < 1e-12) return 1;
-  return Math.abs(Math.sin(cycles * Math.PI * x) / (cycles * Math.sin(Math.PI * x)));
+export function lineCycleGain(order: number, cycles: number): number {
+  return cycles >= 1 ? cycleCombGain(order, cycles) : 1;
 }
 
 /** Maps an SNR in dB to a strength 0–1: nothing below 3 dB, full at 21 dB and above. */
