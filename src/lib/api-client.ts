@@ -24,7 +24,8 @@ export class ApiError extends Error {
 
   /**
    * Field messages from a 400 `validation_failed`, keyed by the first path segment ("email").
-   * Accepts the shapes a zod-backed server sends: a list of issues `{ path, message }`, zod's
+   * Accepts the shapes a zod-backed server sends: a list of issues `{ path, message }` (what
+   * server/middleware/error-handler.ts sends, path dotted or an array), zod's
    * `flatten()` (`{ fieldErrors }`), or a plain `{ field: message }` map.
    */
   fieldErrors(): Record<string, string> {
@@ -35,7 +36,8 @@ export class ApiError extends Error {
 function fieldErrorsFrom(details: unknown): Record<string, string> {
   const out: Record<string, string> = {};
   const put = (field: unknown, message: unknown) => {
-    const key = Array.isArray(field) ? field[0] : field;
+    // The server sends dotted paths ("email", "belts.0.name"); a form field is the first segment.
+    const key = Array.isArray(field) ? field[0] : typeof field === 'string' ? field.split('.')[0] : field;
     const text = Array.isArray(message) ? message[0] : message;
     if ((typeof key === 'string' || typeof key === 'number') && typeof text === 'string' && !(key in out)) {
       out[String(key)] = text;
@@ -151,6 +153,7 @@ export const api = {
   get: <T>(path: string, options?: RequestOptions) => send<T>('GET', path, undefined, options),
   post: <T>(path: string, body?: unknown, options?: RequestOptions) => sendWithCsrf<T>('POST', path, body ?? {}, options),
   patch: <T>(path: string, body: unknown, options?: RequestOptions) => sendWithCsrf<T>('PATCH', path, body, options),
+  put: <T>(path: string, body: unknown, options?: RequestOptions) => sendWithCsrf<T>('PUT', path, body, options),
   delete: <T = void>(path: string, options?: RequestOptions) => sendWithCsrf<T>('DELETE', path, undefined, options),
 };
 
