@@ -10,6 +10,7 @@ import net from 'node:net';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import mariadb from 'mariadb';
+import { projectRoot } from '../server/paths';
 
 /** Options for {@link startDatabase}. */
 export interface StartDatabaseOptions {
@@ -35,17 +36,6 @@ export interface RunningDatabase {
   started: boolean;
   /** Stops the server if this call started it (SIGTERM, waits for it to exit); otherwise does nothing. */
   stop: () => Promise<void>;
-}
-
-/** The project root: the nearest folder above this file holding package.json (works from scripts/ and dist/node/scripts/). */
-export function projectRoot(): string {
-  let dir = dirname(fileURLToPath(import.meta.url));
-  for (;;) {
-    if (existsSync(join(dir, 'package.json')) && existsSync(join(dir, 'server'))) return dir;
-    const up = dirname(dir);
-    if (up === dir) return process.cwd();
-    dir = up;
-  }
 }
 
 const SERVER_CANDIDATES = ['/usr/sbin/mariadbd', '/usr/bin/mariadbd', '/usr/local/bin/mariadbd', '/usr/local/sbin/mariadbd'];

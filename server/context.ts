@@ -1,11 +1,11 @@
 // What route handlers and services need from the running app, kept on app.locals.ctx.
-import type { Request } from 'express';
-import type { Authenticator } from 'passport';
-import type { RequestHandler } from 'express';
+import type { Request, RequestHandler } from 'express';
+import type passportModule from 'passport';
 import type { Sequelize } from 'sequelize';
 import type { Env } from './env';
 import type { Logger } from './logger';
 import type { Mailer } from './mail/mailer';
+import type { Csrf } from './middleware/csrf';
 
 /** The app's collaborators, built once by createApp(). */
 export interface AppContext {
@@ -13,8 +13,9 @@ export interface AppContext {
   sequelize: Sequelize;
   mailer: Mailer;
   logger: Logger;
-  passport: Authenticator;
+  passport: passportModule.Authenticator;
   signInLimiter: RequestHandler;
+  csrf: Csrf;
   /** Base URL for e-mailed links, without a trailing slash. */
   publicUrl: string;
   /** Name of the session cookie (cleared at sign-out). */

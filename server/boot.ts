@@ -1,0 +1,73 @@
+// Boots a full server process: database connection, migrations, demo shop, mail, HTTP listener.
+// Shared by server/index.ts (DATABASE_URL given) and scripts/start.ts (starts its own MariaDB first).
+import type { Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { join } from 'node:path';
+import { createApp } from './app';
+import { createSequelize } from './db/sequelize';
+import { migrate } from './db/migrator';
+import type { Env } from './env';
+import type { Logger } from './logger';
+import { startMailFake, type MailFake } from './mail/fake-smtp';
+import { createSmtpMailer } from './mail/mailer';
+import { projectRoot } from './paths';
+import { removeDemoShop, seedDemoShop } from './services/demo-shop';
+import { resolveSessionSecret } from './session-secret';
+
+/** A running server. */
+export interface BootedServer {
+  url: string;
+  /** True when the demo shop was created by this boot (first run): print its passwords. */
+  demoCreated: boolean;
+  /** The mail fake's SMTP URL, when it runs (MAIL_URL unset). */
+  mailFakeUrl: string | null;
+  close(): Promise<void>;
+}
+
+/** Connects, migrates, seeds or removes the demo shop (DEMO), starts mail and listens on HOST:PORT. */
+export async function bootServer(env: Env, databaseUrl: string, logger: Logger): Promise<BootedServer> {
+  const sequelize = await createSequelize(databaseUrl, logger.child({ component: 'sql' }));
+  const ran = await migrate(sequelize, logger);
+  if (ran.length) logger.info('migrated', { migrations: ran.length });
+
+  let demoCreated = false;
+  if (env.DEMO) demoCreated = await seedDemoShop(sequelize, env.BCRYPT_ROUNDS);
+  else if ((await removeDemoShop()) > 0) logger.info('DEMO=off: removed the demo shop and its records');
+
+  let fake: MailFake | null = null;
+  let mailUrl = env.MAIL_URL;
+  if (!mailUrl) {
+    fake = await startMailFake(env.MAIL_FAKE_PORT, logger.child({ component: 'mail-fake' }));
+    mailUrl = fake.url;
+    logger.info('mail fake listening (messages go to the Outbox)', { url: fake.url });
+  }
+  const mailer = createSmtpMailer(mailUrl, env.MAIL_FROM);
+  const app = createApp({
+    sequelize,
+    env,
+    mailer,
+    logger,
+    sessionSecret: resolveSessionSecret(env.SESSION_SECRET),
+    clientDir: env.CLIENT_DIR ?? join(projectRoot(), 'dist', 'client'),
+  });
+  const server: Server = await new Promise((resolve, reject) => {
+    const s = app.listen(env.PORT, env.HOST, () => resolve(s));
+    s.once('error', reject);
+  });
+  const { port } = server.address() as AddressInfo;
+  const url = `http://${env.HOST}:${port}`;
+  return {
+    url,
+    demoCreated,
+    mailFakeUrl: fake?.url ?? null,
+    async close() {
+      await new Promise<void>((resolve) => {
+        server.close(() => resolve());
+        server.closeAllConnections();
+      });
+      mailer.close();
+      await fake?.stop();
+      await sequelize.close();
+    },
+  };
+}

@@ -1,0 +1,21 @@
+// THE route access table: every /api route, declared once, with who may call it and which path
+// parameter names a shop-owned record. The /api router is built from it (build-router.ts) and
+// tests/server/routes/route-table.test.ts walks every row for every role and a signed-out visitor.
+// To add routes: write a file exporting `xRoutes: RouteRow[]` and concatenate it here.
+import { authRoutes } from './auth';
+import { healthRoutes } from './health';
+import { inviteRoutes } from './invites';
+import { outboxRoutes } from './outbox';
+import type { RouteRow } from './route-row';
+import { setupRoutes } from './setup';
+import { userRoutes } from './users';
+
+/** Every API route (paths relative to /api). */
+export const routeTable: readonly RouteRow[] = [
+  ...healthRoutes,
+  ...setupRoutes,
+  ...authRoutes,
+  ...userRoutes,
+  ...inviteRoutes,
+  ...outboxRoutes,
+];
