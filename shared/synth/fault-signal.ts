@@ -1,7 +1,8 @@
 /**
  * The planted fault of a generated capture (one per capture), locked to crank angle through the
- * part's speed: part order = nominal ratio × (1 − creep) per belt stage (fixed-ratio parts: no
- * creep; REFERENCES.md §5).
+ * part's speed: part order = nominal ratio × (1 − creep), creep being the total between crank and
+ * part (fixed-ratio parts: no creep; REFERENCES.md §5). A belt runs at its driving groove's speed,
+ * so a belt driven by a belt-driven part carries that part's creep.
  *
  * - shaft: 1× and 2× sinusoids at the part's speed (unbalance, misalignment);
  * - bearing faults: impacts ringing the structural resonance at the defect rate, with spacing
@@ -44,7 +45,7 @@ export function synthesizeFault(rng: Rng, profile: SpeedProfile, drive: DriveDoc
   if (fault.fault === 'belt') {
     const belt = findByName(drive.belts, fault.component);
     if (!belt) throw new RangeError(`a belt fault needs a belt name; "${fault.component}" is not one of: ${drive.belts.map((b) => b.name).join(', ')}`);
-    const driverOrder = speedRatio(drive, belt.driver) * (1 - creep) ** beltStages(drive, belt.driver);
+    const driverOrder = speedRatio(drive, belt.driver) * (beltStages(drive, belt.driver) > 0 ? 1 - creep : 1);
     const order = beltPassOrder(drive, belt.name) * driverOrder / speedRatio(drive, belt.driver);
     addHarmonics(signal, rng, profile, order, [amplitude, 0.5 * amplitude, 0.3 * amplitude]);
     const slap = impactTrain(rng, profile, order, shape.impactJitterPct / 100, () => 1.5 * amplitude);
@@ -52,8 +53,8 @@ export function synthesizeFault(rng: Rng, profile: SpeedProfile, drive: DriveDoc
     return {
       signal,
       truth: {
-        component: belt.name, target: 'belt', fault: 'belt', ratio: speedRatio(drive, belt.driver), creepPct: shape.creepPct,
-        rollingSlipPct: 0, partOrder: driverOrder, line: 'belt pass 1x', spectrum: 'orders',
+        component: belt.name, target: 'belt', fault: 'belt', ratio: speedRatio(drive, belt.driver),
+        creepPct: beltStages(drive, belt.driver) > 0 ? shape.creepPct : 0, rollingSlipPct: 0, partOrder: driverOrder, line: 'belt pass 1x', spectrum: 'orders',
         nominalOrder: beltPassOrder(drive, belt.name), plantedOrder: order, bearingLineOrder: null, modulationOrder: null,
         factors: null, rotatingRing: null, amplitude,
       },
@@ -62,9 +63,9 @@ export function synthesizeFault(rng: Rng, profile: SpeedProfile, drive: DriveDoc
   const component = findByName(drive.components, fault.component);
   if (!component) throw new RangeError(`no component named "${fault.component}"; the drive has: ${drive.components.map((c) => c.name).join(', ')}`);
   const ratio = speedRatio(drive, component.name);
-  const partOrder = component.fixedRatio !== undefined ? ratio : ratio * (1 - creep) ** beltStages(drive, component.name);
+  const partOrder = component.fixedRatio !== undefined || component.kind === 'crankshaft' ? ratio : ratio * (1 - creep);
   const base = {
-    component: component.name, target: 'component' as const, fault: fault.fault, ratio, creepPct: component.fixedRatio !== undefined ? 0 : shape.creepPct,
+    component: component.name, target: 'component' as const, fault: fault.fault, ratio, creepPct: component.fixedRatio !== undefined || component.kind === 'crankshaft' ? 0 : shape.creepPct,
     partOrder, amplitude,
   };
   if (fault.fault === 'shaft') {

@@ -79,7 +79,7 @@ export const GenerateOptionsSchema = z.object({
   wanderPct: z.number().min(0).max(10).default(2),
   firingFluctuationPct: z.number().min(0).max(3).default(0.3),
   refKind: RefKindSchema.default('cyl1'),
-  refPerCycle: z.number().int().min(1).max(720).nullable().default(null),
+  refPerCycle: z.number().int().min(1).max(64).nullable().default(null),
   wheel: WheelPatternSchema.default('60-2'),
   wheelSensor: z.enum(['vr', 'hall']).default('vr'),
   refPolarity: z.enum(['rising', 'falling']).default('rising'),
