@@ -36,7 +36,7 @@ export function formErrorsFrom(error: unknown): { fields: Record<string, string>
   if (error instanceof ApiError) {
     const fields = error.fieldErrors();
     if (error.code === 'validation_failed' && Object.keys(fields).length > 0) {
-      return { fields, message: fields.form };
+      return { fields, message: fields['(body)'] ?? fields.form };
     }
     return { fields: {}, message: error.message };
   }

@@ -1,5 +1,5 @@
 import { cleanup } from '@testing-library/react';
-import { afterAll, afterEach, beforeAll, beforeEach, vi } from 'vitest';
+import { afterAll, afterEach, beforeAll, beforeEach, vi, type MockInstance } from 'vitest';
 import { dismissToast } from '../../src/components/ui/toast';
 import { resetCsrfToken } from '../../src/lib/api-client';
 import { server } from '../src/helpers/msw-server';
@@ -13,7 +13,7 @@ beforeAll(() => {
   window.scrollTo = () => {};
 });
 
-let consoleError: ReturnType<typeof vi.spyOn>;
+let consoleError: MockInstance<typeof console.error>;
 beforeEach(() => {
   consoleError = vi.spyOn(console, 'error');
 });
@@ -26,7 +26,7 @@ afterEach(() => {
   const calls = consoleError.mock.calls;
   consoleError.mockRestore();
   if (calls.length > 0) {
-    throw new Error(`console.error was called during the test:\n${calls.map((args) => args.map(String).join(' ')).join('\n')}`);
+    throw new Error(`console.error was called during the test:\n${calls.map((args: unknown[]) => args.map(String).join(' ')).join('\n')}`);
   }
 });
 

@@ -109,8 +109,9 @@ describe('Team page', () => {
     fakeTeam([admin]);
     server.use(
       http.post('*/api/invites', () =>
-        apiError(400, 'validation_failed', 'Check the highlighted fields.', [
-          { path: ['email'], message: 'This address already belongs to a user of your shop' },
+        // The server's shape (server/middleware/error-handler.ts): dotted path strings.
+        apiError(400, 'validation_failed', 'email: This address already belongs to a user of your shop', [
+          { path: 'email', message: 'This address already belongs to a user of your shop' },
         ]),
       ),
     );

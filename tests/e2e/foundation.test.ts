@@ -1,0 +1,160 @@
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { NAV_LABELS, navSectionsFor, type Role } from '../../shared/auth/roles';
+import { DEMO_USERS } from '../../server/services/demo-shop';
+import { startTestServer } from '../helpers/test-server';
+
+// Browser test of the Foundation: the BUILT app (npm test builds first) served by the built server
+// against the e2e database with the demo shop, driven through Debian's Chromium.
+// Screenshots land in tests/e2e/screenshots/ (git-ignored) for a person to look at.
+
+const PORT = Number(process.env.E2E_PORT ?? 3200);
+const SCREENSHOTS = path.resolve('tests/e2e/screenshots');
+
+let browser: Browser;
+let server: { baseUrl: string; stop: () => Promise<void> };
+
+beforeAll(async () => {
+  mkdirSync(SCREENSHOTS, { recursive: true });
+  server = await startTestServer({ port: PORT });
+  browser = await chromium.launch({
+    executablePath: '/usr/bin/chromium',
+    headless: true,
+    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'],
+  });
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+async function newPage(): Promise<Page> {
+  const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+  const page = await context.newPage();
+  // Any error the page logs is a failure of the app, not noise.
+  const problems: string[] = [];
+  page.on('pageerror', (error) => problems.push(`pageerror: ${error.message}`));
+  page.on('console', (message) => {
+    if (message.type() === 'error') problems.push(`console.error: ${message.text()}`);
+  });
+  (page as Page & { problems: string[] }).problems = problems;
+  return page;
+}
+
+function problemsOf(page: Page): string[] {
+  return (page as Page & { problems: string[] }).problems;
+}
+
+async function signIn(page: Page, email: string, password: string) {
+  await page.goto(`${server.baseUrl}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('navigation', { name: 'Main' }).waitFor();
+}
+
+async function navLabels(page: Page): Promise<string[]> {
+  return page.getByRole('navigation', { name: 'Main' }).getByRole('link').allInnerTexts();
+}
+
+function shot(page: Page, name: string) {
+  return page.screenshot({ path: path.join(SCREENSHOTS, `${name}.png`), fullPage: true });
+}
+
+describe('Foundation in the browser', () => {
+  it('shows the sign-in page to a visitor and sends the app root there', async () => {
+    const page = await newPage();
+    await page.goto(`${server.baseUrl}/team`);
+    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+    expect(new URL(page.url()).pathname).toBe('/sign-in');
+    await shot(page, 'sign-in');
+    expect(problemsOf(page)).toEqual([]);
+    await page.context().close();
+  });
+
+  it('refuses a wrong password with the server message', async () => {
+    const page = await newPage();
+    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').fill(DEMO_USERS[0].email);
+    await page.getByLabel('Password').fill('certainly-not-the-password');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByText('Could not sign in').waitFor();
+    await shot(page, 'sign-in-refused');
+    // The 401 is expected here; Chromium logs the failed request as a console error.
+    expect(problemsOf(page).filter((p) => !p.includes('401'))).toEqual([]);
+    await page.context().close();
+  });
+
+  it.each(DEMO_USERS.map((u) => [u.role, u] as const))('signs in as the demo %s, shows that role’s navigation and signs out', async (role, demo) => {
+    const page = await newPage();
+    await signIn(page, demo.email, demo.password);
+    await page.getByRole('heading', { name: 'Cases' }).waitFor();
+    const expected = navSectionsFor(role as Role).map((s) => NAV_LABELS[s]);
+    expect(await navLabels(page)).toEqual(expected);
+    expect((await navLabels(page)).includes('Team')).toBe(role === 'admin');
+    await expect(page.getByText(demo.name).first().isVisible()).resolves.toBe(true);
+    await shot(page, `nav-${role}`);
+
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await page.getByText('You are signed out.').waitFor();
+    expect(new URL(page.url()).pathname).toBe('/sign-in');
+    // The session is gone on the server: the app's pages send us back to sign-in.
+    await page.goto(`${server.baseUrl}/cases`);
+    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+    expect(problemsOf(page)).toEqual([]);
+    await page.context().close();
+  });
+
+  it('keeps a technician out of the Team page', async () => {
+    const tech = DEMO_USERS.find((u) => u.role === 'tech')!;
+    const page = await newPage();
+    await signIn(page, tech.email, tech.password);
+    await page.goto(`${server.baseUrl}/team`);
+    await page.getByText('Not available for your role').waitFor();
+    await shot(page, 'team-refused-tech');
+    await page.goto(`${server.baseUrl}/capture-planner`);
+    await page.getByText('Before you record at a running engine').waitFor();
+    await shot(page, 'capture-planner');
+    await page.context().close();
+  });
+
+  it('lets the admin invite someone, read the invite in the Outbox and follow its link', async () => {
+    const admin = DEMO_USERS.find((u) => u.role === 'admin')!;
+    const page = await newPage();
+    await signIn(page, admin.email, admin.password);
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Team' }).click();
+    await page.getByRole('heading', { name: 'Team' }).waitFor();
+    const email = `e2e.invitee.${Date.now()}@demo.crankwise.test`;
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Role', { exact: true }).selectOption('specialist');
+    await page.getByRole('button', { name: 'Send invite' }).click();
+    await page.getByRole('cell', { name: email }).waitFor();
+    await shot(page, 'team-admin');
+
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Outbox' }).click();
+    await page.getByRole('list', { name: 'Messages' }).getByRole('link').filter({ hasText: email }).first().click();
+    const inviteLink = page.getByRole('article').getByRole('link', { name: /\/invite\// });
+    await inviteLink.waitFor();
+    await shot(page, 'outbox-message');
+    const href = await inviteLink.getAttribute('href');
+    expect(href).toMatch(/\/invite\/[^/]+$/);
+
+    // The invitee opens the link in a browser of their own.
+    const invitee = await newPage();
+    await invitee.goto(href!.replace(/^https?:\/\/[^/]+/, server.baseUrl));
+    await invitee.getByText(email).waitFor();
+    await invitee.getByLabel('Your name').fill('Wren Halloway');
+    await invitee.getByLabel('Choose a password').fill('a sturdy e2e password');
+    await shot(invitee, 'invite-accept');
+    await invitee.getByRole('button', { name: /^Join / }).click();
+    await invitee.getByRole('heading', { name: 'Cases' }).waitFor();
+    expect(await navLabels(invitee)).toEqual(navSectionsFor('specialist').map((s) => NAV_LABELS[s]));
+    expect(problemsOf(invitee)).toEqual([]);
+    await invitee.context().close();
+    expect(problemsOf(page)).toEqual([]);
+    await page.context().close();
+  });
+});
