@@ -255,7 +255,9 @@ async function main(): Promise<void> {
   process.once('SIGTERM', shutdown);
 }
 
-if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
+// Run main() only when this file itself is the entry point (`npm run db`), not when bundled into start.js.
+const self = fileURLToPath(import.meta.url);
+if (/[\\/]db\.(ts|js)$/.test(self) && process.argv[1] && resolve(process.argv[1]) === self) {
   main().catch((error: unknown) => {
     console.error(`[db] ${error instanceof Error ? error.message : String(error)}`);
     process.exit(1);
