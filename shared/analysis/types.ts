@@ -5,6 +5,8 @@
  * times the channel scale, corrected for the window's coherent gain.
  */
 
+import type { AnalysisSettings } from '../schemas/analysis-settings';
+
 export interface Peak {
   order: number;
   amplitude: number;
@@ -110,4 +112,70 @@ export interface RankingEntry {
   indistinguishableFrom: string[];
   approximate: boolean;
   matched: MatchedLine[];
+}
+
+/** What was read: rate, duration and channel count (plus names and units where the file gave them). */
+export interface CaptureInfo {
+  sampleRateHz: number;
+  durationS: number;
+  channels: number;
+  format?: string;
+  channelNames?: string[];
+  channelUnits?: (string | null)[];
+}
+
+/** Crank speed: the JSON summary plus the series behind the Speed and Spectrogram views. */
+export interface SpeedResult extends SpeedSummary {
+  /** Trigger-wheel gaps found (each counted as its missing pitches, never as missed teeth). */
+  gaps: number;
+  /** Reference pulses per revolution used (wheel: teeth positions per revolution). */
+  pulsesPerRev: number;
+  /** rpm of each whole revolution. */
+  perRevRpm: Float32Array;
+  /** rpm(t) sampled evenly: trace.timeS[i], trace.rpm[i]. */
+  trace: { timeS: Float32Array; rpm: Float32Array };
+}
+
+export interface OrdersResult {
+  spectrum: OrderSpectrum;
+  peaks: Peak[];
+}
+
+export interface EnvelopeResult {
+  bandHz: [number, number];
+  bandChoice: 'auto' | 'given';
+  resolution: number;
+  /** Peaks of the reported (first) band's envelope order spectrum. */
+  peaks: Peak[];
+  /** The best two or three bands (first = reported), each with its spectrum and peaks. */
+  bands: EnvelopeBand[];
+  /** Whether the 720° synchronous average was subtracted before the envelope (needs ≥ 2 cycles). */
+  residual: boolean;
+}
+
+/** STFT amplitude of the pickup with the rpm at each frame (capped at 1M floats). */
+export interface SpectrogramResult {
+  frames: number;
+  bins: number;
+  binWidthHz: number;
+  hopS: number;
+  /** Time of frame 0's centre. */
+  startS: number;
+  /** frames × bins, row-major, single-sided peak amplitude. */
+  amplitude: Float32Array;
+  rpm: Float32Array;
+}
+
+/** One whole pipeline run (DESIGN.md steps 1–8). `toAnalyzeJson` projects it to the CLI's JSON. */
+export interface AnalysisResult {
+  capture: CaptureInfo;
+  settings: AnalysisSettings;
+  speed: SpeedResult;
+  orders: OrdersResult;
+  envelope: EnvelopeResult;
+  cycle: CycleResult;
+  spectrogram: SpectrogramResult;
+  ranking: RankingEntry[];
+  warnings: Warning[];
+  timingsMs: AnalysisTimingsMs;
 }

@@ -1,0 +1,69 @@
+import { type FftPlanCache, nextPowerOfTwo } from '../dsp/fft';
+import { createWindow } from '../dsp/window';
+import { finishSpectrum } from './order-spectrum';
+import { type OrderSpectrum } from './types';
+
+/**
+ * Envelope order spectra of several bands from one pass over an angle-domain signal. Per block of
+ * revsPerBlock revolutions (50 % overlap): Hann window, one real FFT shared by all bands; per band
+ * the bins of the band (orders = Hz / mean shaft Hz), doubled (analytic signal, Marple 1999) and
+ * moved to baseband, an inverse FFT of a smaller size M gives the complex band signal decimated to
+ * M samples per block; |z| is the envelope times the window (the window varies slowly against the
+ * band), its mean·window is removed (the spectrum of the envelope, mean removed — not the squared
+ * envelope), a real FFT of size M, power averaged over blocks. Amplitudes are single-sided peak
+ * amplitudes corrected for the Hann window's coherent gain, in input units.
+ */
+export function envelopeSpectra(x: Float64Array, samplesPerRev: number, revsPerBlock: number, bandsOrders: [number, number][], maxOrder: number, plans: FftPlanCache): OrderSpectrum[] {
+  const n = samplesPerRev * revsPerBlock;
+  if (x.length < n) throw new RangeError(`envelope spectrum needs at least ${n} samples (one block), got ${x.length}`);
+  const plan = plans.get(n);
+  const w = createWindow('hann', n);
+  let wSum = 0;
+  for (let i = 0; i < n; i++) wSum += w[i];
+  const hop = n / 2;
+  const blocks = Math.floor((x.length - n) / hop) + 1;
+  const frame = new Float64Array(n);
+  const spec = plan.work;
+  const bands = bandsOrders.map(([lo, hi]) => {
+    const k0 = Math.max(1, Math.floor(lo * revsPerBlock));
+    const k1 = Math.min(n / 2 - 1, Math.ceil(hi * revsPerBlock));
+    const width = Math.max(1, k1 - k0 + 1);
+    const m = Math.min(n, nextPowerOfTwo(Math.max(Math.ceil(2.5 * maxOrder * revsPerBlock), Math.ceil(1.25 * width))));
+    const bins = Math.min(m / 2, Math.floor(maxOrder * revsPerBlock)) + 1;
+    const decim = n / m;
+    const wDec = new Float64Array(m);
+    let wDecSum = 0;
+    for (let i = 0; i < m; i++) { wDec[i] = w[i * decim]; wDecSum += wDec[i]; }
+    return {
+      k0, k1, m, bins, wDec, wDecSum, plan: plans.get(m),
+      zIn: new Float64Array(2 * m), z: new Float64Array(2 * m), e: new Float64Array(m), acc: new Float64Array(bins),
+    };
+  });
+  for (let b = 0; b < blocks; b++) {
+    const s = b * hop;
+    for (let i = 0; i < n; i++) frame[i] = x[s + i] * w[i];
+    plan.fft.realTransform(spec, frame);
+    for (const B of bands) {
+      const { m, zIn, z, e, wDec } = B;
+      zIn.fill(0);
+      // z[j] = (2/n)·Σ X[k]·e^{2πi(k−k0)j/m}: fft.js's inverse divides by m, hence the m/n factor.
+      const g = (2 * m) / n;
+      for (let k = B.k0, j = 0; k <= B.k1; k++, j++) { zIn[2 * j] = spec[2 * k] * g; zIn[2 * j + 1] = spec[2 * k + 1] * g; }
+      B.plan.fft.inverseTransform(z, zIn);
+      let eSum = 0;
+      for (let i = 0; i < m; i++) { const v = Math.hypot(z[2 * i], z[2 * i + 1]); e[i] = v; eSum += v; }
+      const mu = eSum / B.wDecSum;
+      for (let i = 0; i < m; i++) e[i] -= mu * wDec[i];
+      B.plan.fft.realTransform(B.z, e);
+      const o = B.z;
+      for (let k = 0; k < B.bins; k++) B.acc[k] += o[2 * k] * o[2 * k] + o[2 * k + 1] * o[2 * k + 1];
+    }
+  }
+  void wSum;
+  return bands.map((B) => {
+    const scale = 2 / (B.m * (B.wDecSum / B.m));
+    const amp = new Float64Array(B.bins);
+    for (let k = 0; k < B.bins; k++) amp[k] = Math.sqrt(B.acc[k] / blocks) * scale;
+    return finishSpectrum(amp, revsPerBlock, maxOrder, B.m / revsPerBlock, blocks);
+  });
+}

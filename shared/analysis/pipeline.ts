@@ -1,0 +1,248 @@
+import { CaptureFormatError } from '../formats/capture-format-error';
+import { decimateByTwo, designHalfBand, designLowPass, kaiserLength } from '../dsp/fir';
+import { FftPlanCache, nextPowerOfTwo } from '../dsp/fft';
+import { overlapSaveFilter } from '../dsp/overlap-save';
+import { type AnalysisSettings, AnalysisSettingsSchema } from '../schemas/analysis-settings';
+import { type DriveDocument } from '../drive/types';
+import { AnalysisInputError } from './analysis-input-error';
+import { resampleAtAngles } from './angle-resample';
+import { crankAngle, crankSpeed } from './crank-speed';
+import { cycleView } from './cycle-view';
+import { chooseEnvelopeBands } from './envelope-band';
+import { envelopeSpectra } from './envelope-spectrum';
+import { commonFiringOrder } from './firing-order';
+import { orderPeaks } from './order-peaks';
+import { orderSpectrum } from './order-spectrum';
+import { extractReference } from './reference';
+import { spectrogram } from './spectrogram';
+import { subtractAverage, synchronousAverage } from './synchronous-average';
+import { type AnalysisResult, type EnvelopeBand, type RankingEntry, type RankingInput, type Warning } from './types';
+
+/**
+ * The analysis pipeline (DESIGN.md steps 1–8) over decoded channels: reference edges → crank angle
+ * and speed → order spectrum of the pickup → envelope of the best impulsive bands (residual after
+ * the 720° average) → engine-cycle view → spectrogram → peaks → ranking (when the caller passes
+ * `rank`, built from a drive document; shared/analysis never imports the ranking). The CLI, the
+ * workers and the tests all call this one function. Pure apart from `performance.now()` timings.
+ */
+export interface PipelineInput {
+  channels: Float32Array[] | Float64Array[];
+  sampleRateHz: number;
+  format?: string;
+  channelNames?: string[];
+  channelUnits?: (string | null)[];
+}
+
+export interface PipelineOptions {
+  drive?: DriveDocument;
+  rank?: (input: RankingInput) => RankingEntry[];
+  /** Notes from the reader (become warnings). */
+  notes?: string[];
+  /** Time spent reading the file, reported as timingsMs.read. */
+  readMs?: number;
+}
+
+const ENVELOPE_LOW_HZ = 300;
+
+/** Runs the whole analysis; throws CaptureFormatError / AnalysisInputError on unusable input. */
+export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, options: PipelineOptions = {}): AnalysisResult {
+  const clock = () => performance.now();
+  const tStart = clock();
+  const settings = AnalysisSettingsSchema.parse(settingsIn);
+  const fs = input.sampleRateHz;
+  if (!(fs > 0 && Number.isFinite(fs))) throw new RangeError(`sample rate must be a positive number of Hz, got ${fs}`);
+  const warnings: Warning[] = (options.notes ?? []).map((message) => ({ code: 'reader_note', message }));
+  const nch = input.channels.length;
+  const roles: [string, number][] = [['--ref-channel', settings.refChannel], ['--pickup-channel', settings.pickupChannel]];
+  if (settings.camChannel) roles.push(['--cam-channel', settings.camChannel]);
+  for (const [flag, ch] of roles) {
+    if (ch > nch) {
+      throw new CaptureFormatError('too_few_channels',
+        `the capture has ${nch} channel${nch === 1 ? '' : 's'} but ${flag} ${ch} asks for channel ${ch}; record the reference and the pickup together or fix ${flag}`);
+    }
+  }
+  const n = input.channels[0].length;
+  const durationS = n / fs;
+  const scale = (ch: number) => settings.channelScales[ch - 1] ?? 1;
+  const ref = toFloat32(input.channels[settings.refChannel - 1], scale(settings.refChannel));
+  const cam = settings.camChannel ? toFloat32(input.channels[settings.camChannel - 1], 1) : null;
+  const pickup = toFloat64(input.channels[settings.pickupChannel - 1], scale(settings.pickupChannel));
+  let firingOrder = settings.firingOrder;
+  if (!firingOrder) {
+    firingOrder = commonFiringOrder(settings.cylinders);
+    warnings.push({ code: 'firing_order_assumed', message: `no firing order given; the cycle view uses ${firingOrder.join('-')}, the common order for ${settings.cylinders} cylinders (give --firing-order)` });
+  }
+  const resolved: AnalysisSettings = { ...settings, firingOrder };
+  const plans = new FftPlanCache();
+  const t: Record<string, number> = {};
+
+  // 2–3. Reference and crank speed.
+  let t0 = clock();
+  const reference = extractReference(ref, fs, settings, cam);
+  warnings.push(...reference.warnings);
+  const crank = crankAngle(reference);
+  const speed = crankSpeed(reference, crank, durationS);
+  if (speed.meanRpm < settings.minRpm || speed.meanRpm > settings.maxRpm) {
+    warnings.push({ code: 'rpm_implausible', message: `mean speed ${speed.meanRpm.toFixed(0)} rpm is outside ${settings.minRpm}–${settings.maxRpm} rpm; check --ref-kind and --ref-per-cycle` });
+  }
+  const meanShaftHz = speed.meanRpm / 60;
+  const minShaftHz = (Math.min(speed.minRpm, speed.meanRpm) / 60) * 0.98;
+  const maxShaftHz = (Math.max(speed.maxRpm, speed.meanRpm) / 60) * 1.02;
+  t.speed = clock() - t0;
+
+  // 4. Order tracking: half-band decimation, anti-alias low-pass, resampling at constant angle.
+  t0 = clock();
+  const half = designHalfBand();
+  let xE: Float64Array = pickup;
+  let fsE = fs;
+  while (fsE / 2 >= 2.5 * settings.envelopeMaxHz) { xE = decimateByTwo(xE, half); fsE /= 2; }
+  const usableHz = (fsE < fs ? 0.4 : 0.45) * fsE;
+  const maxOrder = settings.maxOrder;
+  let spr = settings.samplesPerRev;
+  while (maxOrder > 0.4 * spr) spr *= 2;
+  if (spr !== settings.samplesPerRev) warnings.push({ code: 'samples_per_rev_raised', message: `samples per revolution raised to ${spr} to reach order ${maxOrder}` });
+  let passHz = maxOrder * maxShaftHz;
+  const stopHz = (spr - maxOrder) * minShaftHz;
+  if (stopHz <= passHz * 1.05) {
+    passHz = stopHz / 1.3;
+    warnings.push({ code: 'speed_range_wide', message: `speed varies too much (${speed.minRpm.toFixed(0)}–${speed.maxRpm.toFixed(0)} rpm) for orders up to ${maxOrder} at every speed; the highest orders are attenuated at the fast end` });
+  }
+  let xO = xE;
+  let fsO = fsE;
+  while (0.2 * fsO >= stopHz && fsO / 2 >= 8 * passHz) { xO = decimateByTwo(xO, half); fsO /= 2; }
+  if (stopHz < 0.45 * fsO) {
+    const cutoff = (passHz + stopHz) / 2 / fsO;
+    const len = Math.min(4001, kaiserLength((stopHz - passHz) / fsO, 80));
+    xO = overlapSaveFilter(xO, designLowPass(cutoff, len, 80), plans);
+  }
+  const count = Math.floor(((crank.lastDeg - crank.firstDeg) / 360) * spr);
+  const revs = count / spr;
+  let rpb = settings.revsPerBlock;
+  while (rpb > 4 && revs < 2 * rpb) rpb /= 2;
+  if (revs < rpb) {
+    throw new AnalysisInputError('too_short', `the reference covers only ${revs.toFixed(1)} revolutions; record at least 10 seconds (or 40 revolutions)`);
+  }
+  if (rpb !== settings.revsPerBlock) {
+    warnings.push({ code: 'short_capture', message: `only ${revs.toFixed(0)} revolutions: revolutions per block lowered to ${rpb} (resolution ${(1 / rpb).toFixed(3)} order); record longer for finer resolution` });
+  }
+  const xAng = resampleAtAngles(xO, fsO, crank.timeAt, crank.firstDeg, count, spr);
+  const orders = orderSpectrum(xAng, spr, rpb, maxOrder, plans);
+  t.orders = clock() - t0;
+
+  // 5. Envelope of the residual after the 720° average, in the angle domain at a high rate.
+  t0 = clock();
+  const hiSpr = Math.max(2 * spr, nextPowerOfTwo(fsE / meanShaftHz));
+  const tdcDeg = reference.cycleOriginDeg + settings.tdcOffsetDeg;
+  const cycleStart = tdcDeg + 720 * Math.ceil((crank.firstDeg - tdcDeg) / 720);
+  const hiCount = Math.max(0, Math.floor(((crank.lastDeg - cycleStart) / 360) * hiSpr));
+  let rpbE = rpb;
+  while (rpbE > 2 && hiCount < hiSpr * rpbE) rpbE /= 2;
+  if (hiCount < hiSpr * rpbE) {
+    throw new AnalysisInputError('too_short', `the capture holds less than one whole engine cycle after cylinder-1 TDC; record at least 10 seconds`);
+  }
+  const xHi = resampleAtAngles(xE, fsE, crank.timeAt, cycleStart, hiCount, hiSpr);
+  const avg = synchronousAverage(xHi, 2 * hiSpr);
+  const residualOk = avg.cycles >= 2;
+  const residual = residualOk ? subtractAverage(xHi, avg.average) : xHi;
+  if (!residualOk) warnings.push({ code: 'no_cycle_average', message: 'fewer than two engine cycles: the envelope band was chosen without removing the engine cycle' });
+  const given = settings.envelopeBand !== 'auto';
+  let bands: { bandHz: [number, number]; score: number }[];
+  if (settings.envelopeBand !== 'auto') {
+    let [lo, hi] = settings.envelopeBand;
+    if (hi > usableHz) {
+      warnings.push({ code: 'envelope_band_clipped', message: `envelope band ${lo}–${hi} Hz reaches above the usable ${usableHz.toFixed(0)} Hz of this capture; clipped` });
+      hi = usableHz;
+      lo = Math.min(lo, hi - 100);
+    }
+    bands = [{ bandHz: [lo, hi], score: NaN }];
+  } else {
+    const minWidthHz = Math.max(500, 40 * meanShaftHz);
+    bands = chooseEnvelopeBands(residual, {
+      rateHz: hiSpr * meanShaftHz, loHz: ENVELOPE_LOW_HZ, hiHz: usableHz, minWidthHz, maxWidthHz: 4 * minWidthHz, count: 3,
+    }, plans);
+  }
+  const envSpecs = envelopeSpectra(residual, hiSpr, rpbE, bands.map((b) => [b.bandHz[0] / meanShaftHz, b.bandHz[1] / meanShaftHz]), maxOrder, plans);
+  t.envelope = clock() - t0;
+
+  // 6. Engine-cycle view.
+  t0 = clock();
+  const cycle = cycleView({
+    x: xHi, samplesPerRev: hiSpr, tdcOffsetDeg: settings.tdcOffsetDeg, firingOrder,
+    phaseResolved: reference.phaseResolved, ambiguityDeg: reference.ambiguityDeg,
+  });
+  t.cycle = clock() - t0;
+
+  // 7. Spectrogram.
+  t0 = clock();
+  const spec = spectrogram(xE, fsE, crank, plans);
+  t.spectrogram = clock() - t0;
+
+  // 8. Peaks.
+  t0 = clock();
+  const orderPk = orderPeaks(orders, settings.cylinders);
+  const envBands: EnvelopeBand[] = bands.map((b, i) => ({
+    bandHz: [round(b.bandHz[0], 1), round(b.bandHz[1], 1)], score: Number.isFinite(b.score) ? b.score : 0,
+    spectrum: envSpecs[i], peaks: orderPeaks(envSpecs[i], settings.cylinders),
+  }));
+  sanityCheck(orderPk, settings.cylinders, warnings);
+  t.peaks = clock() - t0;
+
+  // Ranking (the caller's, from the drive document).
+  t0 = clock();
+  const ranking = options.rank
+    ? options.rank({ orders, envelopes: envBands, cylinders: settings.cylinders, cyclesAveraged: cycle.cyclesAveraged, meanRpm: speed.meanRpm })
+    : [];
+  t.ranking = clock() - t0;
+  const read = options.readMs ?? 0;
+  const total = clock() - tStart + read;
+  return {
+    capture: { sampleRateHz: fs, durationS, channels: nch, format: input.format, channelNames: input.channelNames, channelUnits: input.channelUnits },
+    settings: resolved,
+    speed,
+    orders: { spectrum: orders, peaks: orderPk },
+    envelope: {
+      bandHz: envBands[0].bandHz, bandChoice: given ? 'given' : 'auto', resolution: envSpecs[0].resolution,
+      peaks: envBands[0].peaks, bands: envBands, residual: residualOk,
+    },
+    cycle,
+    spectrogram: spec,
+    ranking,
+    warnings,
+    timingsMs: {
+      read, speed: t.speed, orders: t.orders, envelope: t.envelope, cycle: t.cycle,
+      spectrogram: t.spectrogram, peaks: t.peaks, ranking: t.ranking, total,
+    },
+  };
+}
+
+/** Warns when the strongest engine line sits at 2× or ½× the firing order (wrong pulse count?). */
+function sanityCheck(peaks: AnalysisResult['orders']['peaks'], cylinders: number, warnings: Warning[]): void {
+  const firing = cylinders / 2;
+  const strongest = peaks.find((p) => p.engineOrder !== null);
+  if (!strongest || strongest.engineOrder === null) return;
+  const eo = strongest.engineOrder;
+  if (Math.abs(eo - 2 * firing) < 1e-9 || Math.abs(eo - firing / 2) < 1e-9) {
+    warnings.push({
+      code: 'firing_order_mismatch',
+      message: `the strongest engine line is at order ${eo}, ${eo > firing ? 'twice' : 'half'} the firing order ${firing} of ${cylinders} cylinders; the reference pulse count (--ref-kind / --ref-per-cycle) or --cylinders is probably wrong`,
+    });
+  }
+}
+
+function toFloat32(x: Float32Array | Float64Array, scale: number): Float32Array {
+  if (x instanceof Float32Array && scale === 1) return x;
+  const y = new Float32Array(x.length);
+  for (let i = 0; i < x.length; i++) y[i] = x[i] * scale;
+  return y;
+}
+
+function toFloat64(x: Float32Array | Float64Array, scale: number): Float64Array {
+  const y = new Float64Array(x.length);
+  for (let i = 0; i < x.length; i++) y[i] = x[i] * scale;
+  return y;
+}
+
+function round(v: number, digits: number): number {
+  const f = 10 ** digits;
+  return Math.round(v * f) / f;
+}

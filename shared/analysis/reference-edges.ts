@@ -1,0 +1,103 @@
+import { median } from '../dsp/stats';
+
+/**
+ * Reference pulses from an ignition lead, a coil, a cam/crank sensor or a trigger wheel.
+ * Levels are robust: the baseline is the median, the pulse height the median of the maxima of
+ * half-second segments (one glitch or one loud spark does not move it). A Schmitt trigger with
+ * hysteresis (arm below 15 %, fire above 30 % of the pulse height) and a dead time (debounce from
+ * the highest plausible rpm, then from the measured pulse spacing) rejects ignition ringing. The
+ * edge time is the sub-sample crossing of half the pulse's own height (constant fraction, linear
+ * interpolation between samples), so weak and strong pulses are timed alike (Fyfe & Munck 1997:
+ * order-tracking accuracy depends on pulse timing).
+ */
+
+export type Polarity = 'rising' | 'falling';
+
+export interface DetectedPulses {
+  /** Edge times in samples (fractional). */
+  times: Float64Array;
+  /** Pulse heights above the baseline. */
+  heights: Float64Array;
+  polarity: Polarity;
+  /** Robust pulse height of the chosen polarity. */
+  level: number;
+}
+
+export interface PulseLevels { baseline: number; rising: number; falling: number }
+
+/** Baseline and robust pulse heights of both polarities. */
+export function pulseLevels(x: Float32Array, sampleRateHz: number): PulseLevels {
+  const stride = Math.max(1, Math.floor(x.length / 100_000));
+  const sub = new Float64Array(Math.ceil(x.length / stride));
+  for (let i = 0, j = 0; i < x.length; i += stride, j++) sub[j] = x[i];
+  const baseline = median(sub);
+  const seg = Math.max(16, Math.min(Math.round(0.5 * sampleRateHz), Math.floor(x.length / 4)));
+  const maxs: number[] = [];
+  const mins: number[] = [];
+  for (let s = 0; s + seg <= x.length; s += seg) {
+    let hi = -Infinity, lo = Infinity;
+    for (let i = s; i < s + seg; i++) { const v = x[i]; if (v > hi) hi = v; if (v < lo) lo = v; }
+    maxs.push(hi - baseline);
+    mins.push(baseline - lo);
+  }
+  return { baseline, rising: median(maxs), falling: median(mins) };
+}
+
+/**
+ * Pulses of one polarity. `deadSamples` is the minimum spacing between accepted edges.
+ * `level` is the pulse height the thresholds are relative to.
+ */
+export function detectPulses(x: Float32Array, baseline: number, level: number, polarity: Polarity, deadSamples: number): DetectedPulses {
+  const sign = polarity === 'rising' ? 1 : -1;
+  const hi = 0.3 * level;
+  const lo = 0.15 * level;
+  const times: number[] = [];
+  const heights: number[] = [];
+  const n = x.length;
+  let armed = false;
+  let last = -Infinity;
+  let i = 0;
+  // Start armed only once the signal has been below the low threshold (no half pulse at the start).
+  while (i < n && sign * (x[i] - baseline) >= lo) i++;
+  armed = true;
+  for (; i < n; i++) {
+    const y = sign * (x[i] - baseline);
+    if (!armed) {
+      if (y < lo && i - last >= deadSamples) armed = true;
+      continue;
+    }
+    if (y >= hi && i - last >= deadSamples) {
+      // Follow the pulse to its peak (until it falls below the low threshold or the dead time ends).
+      let peak = y, pk = i;
+      const stop = Math.min(n, i + Math.max(2, Math.floor(deadSamples)));
+      for (let j = i + 1; j < stop; j++) {
+        const v = sign * (x[j] - baseline);
+        if (v > peak) { peak = v; pk = j; }
+        if (v < lo) break;
+      }
+      // Constant-fraction crossing: half of this pulse's height, searched back from the peak.
+      const half = 0.5 * peak;
+      let j = pk;
+      while (j > 0 && sign * (x[j - 1] - baseline) >= half) j--;
+      let t = j;
+      if (j > 0) {
+        const a = sign * (x[j - 1] - baseline), b = sign * (x[j] - baseline);
+        t = j - 1 + (b > a ? (half - a) / (b - a) : 1);
+      }
+      if (pk === n - 1 || (j === 0 && sign * (x[0] - baseline) >= half)) { armed = false; last = i; continue; }
+      times.push(t);
+      heights.push(peak);
+      last = i;
+      armed = false;
+    }
+  }
+  return { times: Float64Array.from(times), heights: Float64Array.from(heights), polarity, level };
+}
+
+/** Median spacing of pulse times (samples). */
+export function medianSpacing(times: Float64Array): number {
+  if (times.length < 2) return Infinity;
+  const d = new Float64Array(times.length - 1);
+  for (let i = 1; i < times.length; i++) d[i - 1] = times[i] - times[i - 1];
+  return median(d);
+}

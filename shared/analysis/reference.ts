@@ -1,0 +1,184 @@
+import { type AnalysisSettings } from '../schemas/analysis-settings';
+import { median } from '../dsp/stats';
+import { AnalysisInputError } from './analysis-input-error';
+import { detectPulses, medianSpacing, type Polarity, pulseLevels } from './reference-edges';
+import { repairPulses } from './repair-pulses';
+import { type Warning } from './types';
+import { wheelAngles } from './wheel';
+
+/**
+ * From the reference channel to crank angle at each edge (DESIGN.md step 2). Angles are crank
+ * degrees from the first accepted edge (wheel: from the first tooth after the first gap). The
+ * four-stroke cycle is 720° [common practice; Heywood 1988, from memory]: `cyl1` gives one pulse
+ * per cycle, `per-rev` one per revolution, `per-cylinder` cylinders per cycle, `refPerCycle` N
+ * evenly spaced per cycle; a wheel's teeth give angle from the tooth index.
+ */
+export interface ReferenceResult {
+  /** Edge times in seconds (float64) and their crank angles in degrees, increasing. */
+  timesS: Float64Array;
+  anglesDeg: Float64Array;
+  edges: number;
+  repairedEdges: number;
+  gaps: number;
+  pulsesPerRev: number;
+  polarity: Polarity;
+  /** Crank angle (deg) of the reference edge that starts cylinder 1's cycle (TDC = this + tdcOffsetDeg). */
+  cycleOriginDeg: number;
+  phaseResolved: boolean;
+  /** The 720° phase is known only modulo this many degrees (720 when resolved). */
+  ambiguityDeg: number;
+  warnings: Warning[];
+}
+
+/** Reference pulses per 720° cycle implied by the settings (not for wheels). */
+export function pulsesPerCycle(s: AnalysisSettings): number {
+  if (s.refPerCycle) return s.refPerCycle;
+  return s.refKind === 'per-rev' ? 2 : s.refKind === 'per-cylinder' ? s.cylinders : 1;
+}
+
+/** Crank angle at each reference edge, with repair, wheel gaps and the cycle phase. */
+export function extractReference(ref: Float32Array, sampleRateHz: number, s: AnalysisSettings, cam: Float32Array | null): ReferenceResult {
+  const warnings: Warning[] = [];
+  const levels = pulseLevels(ref, sampleRateHz);
+  const polarity: Polarity = s.refPolarity === 'auto' ? (levels.rising >= levels.falling ? 'rising' : 'falling') : s.refPolarity;
+  const level = polarity === 'rising' ? levels.rising : levels.falling;
+  const isWheel = s.refKind === 'wheel';
+  const [teeth, missing] = s.wheel.split('-').map(Number);
+  const ppc = isWheel ? 2 * teeth : pulsesPerCycle(s);
+  const noRef = (found: number) => new AnalysisInputError('no_reference',
+    `found ${found} reference pulse${found === 1 ? '' : 's'} on channel ${s.refChannel}; check --ref-channel, --ref-kind and the reference lead`);
+  if (!(level > 0)) throw noRef(0);
+  const fs = sampleRateHz;
+  const dead1 = 0.5 * fs * (120 / s.maxRpm) / ppc;
+  let pulses = detectPulses(ref, levels.baseline, level, polarity, dead1);
+  if (pulses.times.length >= 4) {
+    const dead2 = Math.max(dead1, 0.4 * medianSpacing(pulses.times));
+    pulses = detectPulses(ref, levels.baseline, level, polarity, dead2);
+  }
+  let times = Array.from(pulses.times);
+  let heights = Array.from(pulses.heights);
+  if (times.length < 3) throw noRef(times.length);
+
+  if (!isWheel) {
+    // A weak spark midway between strong ones (wasted spark of the same polarity): keep it only
+    // when the reference has two or more pulses per cycle.
+    const strong = heights.map((h) => h >= 0.6 * level);
+    const mid = midwayCount(times, strong);
+    const strongCount = strong.filter(Boolean).length;
+    if (mid >= 0.5 * (strongCount - 1) && ppc === 1) {
+      times = times.filter((_, i) => strong[i]);
+      heights = heights.filter((_, i) => strong[i]);
+      warnings.push({ code: 'wasted_spark_ignored', message: 'weak pulses midway between the reference pulses (a wasted spark) were ignored' });
+    }
+    // A weak spark of the other polarity midway: part of a once-per-revolution reference.
+    if (ppc % 2 === 0) {
+      const other: Polarity = polarity === 'rising' ? 'falling' : 'rising';
+      const oLevel = other === 'rising' ? levels.rising : levels.falling;
+      const ownDead = 0.4 * medianSpacing(Float64Array.from(times));
+      if (oLevel > 0 && times.length >= 3) {
+        const op = detectPulses(ref, levels.baseline, oLevel, other, ownDead);
+        const between = midwayOthers(times, Array.from(op.times));
+        if (between.length >= 0.7 * (times.length - 1) && medianSpacing(Float64Array.from(times)) > 1.6 * medianSpacingOfMerged(times, between)) {
+          times = [...times, ...between].sort((a, b) => a - b);
+          warnings.push({ code: 'wasted_spark_merged', message: `the reference alternates ${polarity} and ${other} pulses (wasted spark of the other polarity); both were used` });
+        }
+      }
+    }
+  }
+
+  let result: { timesSamples: Float64Array; angles: Float64Array; edges: number; repaired: number; gaps: number };
+  if (isWheel) {
+    const w = wheelAngles(times, teeth, missing);
+    if (w.gaps === 0) {
+      throw new AnalysisInputError('no_wheel_gap', `no gap found on the ${s.wheel} trigger wheel (channel ${s.refChannel}); check --wheel and --ref-kind`);
+    }
+    warnings.push(...w.warnings);
+    result = { timesSamples: w.times, angles: w.anglesDeg, edges: w.edges, repaired: w.repaired, gaps: w.gaps };
+  } else {
+    const r = repairPulses(times);
+    warnings.push(...r.warnings);
+    const pitchDeg = 720 / ppc;
+    const angles = new Float64Array(r.times.length);
+    for (let i = 0; i < angles.length; i++) angles[i] = r.pitchIndex[i] * pitchDeg;
+    result = { timesSamples: r.times, angles, edges: r.edges, repaired: r.repaired, gaps: 0 };
+  }
+  if (result.timesSamples.length < 3) throw noRef(result.timesSamples.length);
+  const timesS = new Float64Array(result.timesSamples.length);
+  for (let i = 0; i < timesS.length; i++) timesS[i] = result.timesSamples[i] / fs;
+
+  // Cycle phase: resolved by a one-per-cycle reference or by a cam channel.
+  const syncDeg = isWheel ? 360 : 720 / ppc;
+  let cycleOriginDeg = 0;
+  let phaseResolved = syncDeg >= 720;
+  if (!phaseResolved && cam) {
+    const origin = camOrigin(cam, fs, s, timesS, result.angles, syncDeg);
+    if (origin === null) warnings.push({ code: 'cam_unreadable', message: `no cam pulses found on channel ${s.camChannel}; the cycle phase stays unresolved` });
+    else { cycleOriginDeg = origin; phaseResolved = true; }
+  }
+  return {
+    timesS, anglesDeg: result.angles, edges: result.edges, repairedEdges: result.repaired, gaps: result.gaps,
+    pulsesPerRev: isWheel ? teeth : ppc / 2, polarity, cycleOriginDeg, phaseResolved,
+    ambiguityDeg: phaseResolved ? 720 : syncDeg, warnings,
+  };
+}
+
+function midwayCount(times: number[], strong: boolean[]): number {
+  let count = 0;
+  let prev = -1;
+  for (let i = 0; i < times.length; i++) {
+    if (!strong[i]) continue;
+    if (prev >= 0) {
+      for (let j = prev + 1; j < i; j++) {
+        const f = (times[j] - times[prev]) / (times[i] - times[prev]);
+        if (f > 0.35 && f < 0.65) { count++; break; }
+      }
+    }
+    prev = i;
+  }
+  return count;
+}
+
+function midwayOthers(times: number[], others: number[]): number[] {
+  const out: number[] = [];
+  let j = 0;
+  for (let i = 1; i < times.length; i++) {
+    const a = times[i - 1], b = times[i];
+    while (j < others.length && others[j] <= a) j++;
+    for (let k = j; k < others.length && others[k] < b; k++) {
+      const f = (others[k] - a) / (b - a);
+      if (f > 0.35 && f < 0.65) { out.push(others[k]); break; }
+    }
+  }
+  return out;
+}
+
+function medianSpacingOfMerged(a: number[], b: number[]): number {
+  return medianSpacing(Float64Array.from([...a, ...b].sort((x, y) => x - y)));
+}
+
+/** Angle of the first sync edge at or after each cam edge, folded to [0, 720); the median wins. */
+function camOrigin(cam: Float32Array, fs: number, s: AnalysisSettings, timesS: Float64Array, angles: Float64Array, syncDeg: number): number | null {
+  const lv = pulseLevels(cam, fs);
+  const pol: Polarity = lv.rising >= lv.falling ? 'rising' : 'falling';
+  const level = pol === 'rising' ? lv.rising : lv.falling;
+  if (!(level > 0)) return null;
+  const p = detectPulses(cam, lv.baseline, level, pol, 0.5 * fs * (120 / s.maxRpm));
+  const origins: number[] = [];
+  for (const t of p.times) {
+    const ts = t / fs;
+    if (ts < timesS[0] || ts > timesS[timesS.length - 1]) continue;
+    let i = 0;
+    while (i < timesS.length - 2 && timesS[i + 1] < ts) i++;
+    const th = angles[i] + ((ts - timesS[i]) / (timesS[i + 1] - timesS[i])) * (angles[i + 1] - angles[i]);
+    const o = Math.ceil(th / syncDeg - 1e-6) * syncDeg;
+    origins.push(((o % 720) + 720) % 720);
+  }
+  if (origins.length === 0) return null;
+  // Origins fall on the sync grid; take the most frequent value.
+  const counts = new Map<number, number>();
+  for (const o of origins) { const k = Math.round(o); counts.set(k, (counts.get(k) ?? 0) + 1); }
+  let best = origins[0], bestN = 0;
+  for (const [k, n] of counts) if (n > bestN) { best = k; bestN = n; }
+  void median;
+  return best;
+}

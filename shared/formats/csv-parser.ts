@@ -1,0 +1,158 @@
+import { type Capture, type CaptureParser, GrowableFloat32, GrowableFloat64 } from './capture';
+import { CaptureFormatError, checkSampleRate } from './capture-format-error';
+import { type CsvLayout, type TimeUnit, detectCsvLayout, isNonFiniteWord, parseCell, splitFields, timeUnitFactor } from './csv-layout';
+import { fitSampleRate } from './fit-sample-rate';
+
+/**
+ * Streaming CSV/TSV capture reader: a time column then one column per channel (or a preamble
+ * sample interval and channel columns only), separators `,` `;` tab, decimal point or comma,
+ * optional preamble and unit rows (see csv-layout.ts). The sample rate is fitted over the whole
+ * time column (fit-sample-rate.ts). Values stay in the column's units.
+ */
+
+export interface CsvParserOptions {
+  /** Used in error messages (e.g. the file name). */
+  name?: string;
+  /** Time unit of the time column; null = from the header, else seconds. */
+  timeUnit?: TimeUnit | null;
+}
+
+const LAYOUT_LINES = 400;
+
+/** Creates a CSV chunk parser. */
+export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
+  const name = options.name ?? 'CSV file';
+  const decoder = new TextDecoder('utf-8');
+  let rest = '';
+  let lineNo = 0;
+  let head: string[] | null = [];
+  let headFirstLineNo = 1;
+  let layout: CsvLayout | null = null;
+  let cols: GrowableFloat32[] = [];
+  let time: GrowableFloat64 | null = null;
+  let timeDecimals = 0;
+  let timeExp = 0;
+
+  function fail(code: 'not_a_number' | 'ragged_row' | 'non_finite', line: number, msg: string): never {
+    throw new CaptureFormatError(code, `${name}, line ${line}: ${msg}`);
+  }
+
+  function startData(atEof: boolean) {
+    layout = detectCsvLayout(head!, name, options.timeUnit ?? null, atEof);
+    cols = layout.channelNames.map(() => new GrowableFloat32(1 << 16));
+    if (cols.length === 0) {
+      throw new CaptureFormatError('too_few_channels', `${name}: only a time column, no channel columns; export the reference and pickup channels too`);
+    }
+    time = layout.hasTimeColumn ? new GrowableFloat64(1 << 16) : null;
+    const lines = head!;
+    head = null;
+    for (let i = layout.dataStart; i < lines.length; i++) dataLine(lines[i], headFirstLineNo + i);
+  }
+
+  function dataLine(line: string, no: number) {
+    const L = layout!;
+    if (line.length === 0 || line.trim() === '') return;
+    const f = splitFields(line, L.separator);
+    if (f.length !== L.fields) {
+      fail('ragged_row', no, `${f.length} fields where the header has ${L.fields}; fix or remove that row (or export again)`);
+    }
+    let c0 = 0;
+    if (time) {
+      const cell = f[0];
+      const v = parseCell(cell, L.decimalComma);
+      if (!Number.isFinite(v)) badCell(cell, no, 1);
+      time.push(v);
+      if (time.length <= 4096) trackPrecision(cell);
+      c0 = 1;
+    }
+    for (let c = c0; c < L.fields; c++) {
+      const cell = f[c];
+      const v = parseCell(cell, L.decimalComma);
+      if (!Number.isFinite(v)) badCell(cell, no, c + 1);
+      cols[c - c0].push(v);
+    }
+  }
+
+  function badCell(cell: string, no: number, col: number): never {
+    if (isNonFiniteWord(cell)) fail('non_finite', no, `column ${col} holds "${cell}" (not a finite number); the instrument was probably over range — record again with a larger range`);
+    fail('not_a_number', no, cell === '' ? `column ${col} is empty; every row needs a number in every column` : `column ${col} holds "${cell.slice(0, 24)}", which is not a number; remove text from the data rows`);
+  }
+
+  function trackPrecision(cell: string) {
+    const m = /^[+-]?\d*(?:[.,](\d*))?(?:[eE]([+-]?\d+))?$/.exec(cell);
+    if (!m) return;
+    const dec = m[1]?.length ?? 0;
+    const exp = m[2] ? Number(m[2]) : 0;
+    if (dec - exp > timeDecimals - timeExp) { timeDecimals = dec; timeExp = exp; }
+  }
+
+  function takeLines(text: string, final: boolean) {
+    const all = rest + text;
+    let start = 0;
+    for (;;) {
+      const nl = all.indexOf('\n', start);
+      if (nl < 0) break;
+      let line = all.slice(start, nl);
+      if (line.endsWith('\r')) line = line.slice(0, -1);
+      start = nl + 1;
+      lineNo++;
+      if (head) {
+        if (head.length === 0) headFirstLineNo = lineNo;
+        head.push(line);
+        if (head.length >= LAYOUT_LINES) startData(false);
+      } else dataLine(line, lineNo);
+    }
+    rest = all.slice(start);
+    if (final && rest.length > 0) {
+      lineNo++;
+      const line = rest.endsWith('\r') ? rest.slice(0, -1) : rest;
+      rest = '';
+      if (head) { if (head.length === 0) headFirstLineNo = lineNo; head.push(line); } else dataLine(line, lineNo);
+    }
+  }
+
+  return {
+    feed(chunk: Uint8Array) {
+      if (lineNo === 0 && rest === '' && chunk.length >= 4 && chunk[0] === 0x52 && chunk[1] === 0x49 && chunk[2] === 0x46 && chunk[3] === 0x46) {
+        throw new CaptureFormatError('bad_magic', `${name}: this is a WAV file, not CSV; give it a .wav name`);
+      }
+      takeLines(decoder.decode(chunk, { stream: true }), false);
+    },
+    end(): Capture {
+      takeLines(decoder.decode(), true);
+      if (head) {
+        if (head.every((l) => l.trim() === '')) throw new CaptureFormatError('no_data', `${name}: the file is empty; export the capture again`);
+        startData(true);
+      }
+      const L = layout!;
+      const n = cols[0].length;
+      if (n < 2) throw new CaptureFormatError('no_data', `${name}: ${n} data row${n === 1 ? '' : 's'}; a capture needs at least a second of samples — export the whole record`);
+      const notes: string[] = [];
+      let sampleRateHz: number;
+      if (time) {
+        const unitS = timeUnitFactor(L.timeUnit);
+        const precision = Math.pow(10, -(timeDecimals - timeExp));
+        const fit = fitSampleRate(time.toArray(), precision, name);
+        sampleRateHz = 1 / (fit.intervalUnits * unitS);
+        if (L.timeUnitSource === 'default') notes.push('time column unit not stated; read as seconds (use --time-unit ms if it is milliseconds)');
+        if (L.preambleIntervalS && Math.abs(L.preambleIntervalS * sampleRateHz - 1) > 0.01) {
+          notes.push(`the preamble's sample interval (${L.preambleIntervalS} s) differs from the time column's; used the time column`);
+        }
+      } else {
+        sampleRateHz = 1 / L.preambleIntervalS!;
+      }
+      if (!(sampleRateHz > 0) || !Number.isFinite(sampleRateHz)) {
+        throw new CaptureFormatError('zero_rate', `${name}: the time column does not advance, so the sample rate is zero; export with a time column in seconds or milliseconds`);
+      }
+      checkSampleRate(sampleRateHz, name);
+      return {
+        format: 'csv',
+        sampleRateHz,
+        channels: cols.map((c) => c.toArray().slice()),
+        channelNames: L.channelNames,
+        channelUnits: L.channelUnits,
+        notes,
+      };
+    },
+  };
+}
