@@ -23,7 +23,13 @@ export interface DetectedPulses {
   level: number;
 }
 
-export interface PulseLevels { baseline: number; rising: number; falling: number }
+export interface PulseLevels {
+  baseline: number;
+  rising: number;
+  falling: number;
+  /** Robust noise deviation (1.4826 × median absolute deviation; pulses are too sparse to move it). */
+  noise: number;
+}
 
 /** Baseline and robust pulse heights of both polarities. */
 export function pulseLevels(x: Float32Array, sampleRateHz: number): PulseLevels {
@@ -31,6 +37,8 @@ export function pulseLevels(x: Float32Array, sampleRateHz: number): PulseLevels 
   const sub = new Float64Array(Math.ceil(x.length / stride));
   for (let i = 0, j = 0; i < x.length; i += stride, j++) sub[j] = x[i];
   const baseline = median(sub);
+  for (let j = 0; j < sub.length; j++) sub[j] = Math.abs(sub[j] - baseline);
+  const noise = 1.4826 * median(sub);
   const seg = Math.max(16, Math.min(Math.round(0.5 * sampleRateHz), Math.floor(x.length / 4)));
   const maxs: number[] = [];
   const mins: number[] = [];
@@ -40,7 +48,7 @@ export function pulseLevels(x: Float32Array, sampleRateHz: number): PulseLevels 
     maxs.push(hi - baseline);
     mins.push(baseline - lo);
   }
-  return { baseline, rising: median(maxs), falling: median(mins) };
+  return { baseline, rising: median(maxs), falling: median(mins), noise };
 }
 
 /**

@@ -47,7 +47,7 @@ export function extractReference(ref: Float32Array, sampleRateHz: number, s: Ana
   const ppc = isWheel ? 2 * teeth : pulsesPerCycle(s);
   const noRef = (found: number) => new AnalysisInputError('no_reference',
     `found ${found} reference pulse${found === 1 ? '' : 's'} on channel ${s.refChannel}; check --ref-channel, --ref-kind and the reference lead`);
-  if (!(level > 0)) throw noRef(0);
+  if (!(level > 0) || (!isWheel && level < 4 * levels.noise)) throw noRef(0);
   const fs = sampleRateHz;
   const dead1 = 0.5 * fs * (120 / s.maxRpm) / ppc;
   let pulses = detectPulses(ref, levels.baseline, level, polarity, dead1);
@@ -75,7 +75,7 @@ export function extractReference(ref: Float32Array, sampleRateHz: number, s: Ana
       const other: Polarity = polarity === 'rising' ? 'falling' : 'rising';
       const oLevel = other === 'rising' ? levels.rising : levels.falling;
       const ownDead = 0.4 * medianSpacing(Float64Array.from(times));
-      if (oLevel > 0 && times.length >= 3) {
+      if (oLevel >= Math.max(0.1 * level, 6 * levels.noise) && times.length >= 3) {
         const op = detectPulses(ref, levels.baseline, oLevel, other, ownDead);
         const between = midwayOthers(times, Array.from(op.times));
         if (between.length >= 0.7 * (times.length - 1) && medianSpacing(Float64Array.from(times)) > 1.6 * medianSpacingOfMerged(times, between)) {
