@@ -1,7 +1,8 @@
 /**
  * WAV encoder for generated captures (RIFF/WAVE, little-endian): 16-bit PCM (format tag 1) or
  * 32-bit IEEE float (format tag 3, with the `fact` chunk non-PCM files carry), channels
- * interleaved, channel 1 first. Full scale is ±1.0; 16-bit samples are round(x·32767), clipped.
+ * interleaved, channel 1 first. Full scale is ±1.0; 16-bit samples are round(x·32768) clipped to −32768…32767 (so a reader
+ * dividing by 32768 gets the value back to half a step).
  * Pure: returns the file's bytes.
  */
 
@@ -40,7 +41,7 @@ export function encodeWav(channels: readonly Float32Array[], sampleRateHz: numbe
     for (const channel of channels) {
       const x = channel[i];
       if (float) { view.setFloat32(p, x, true); p += 4; } else {
-        view.setInt16(p, Math.max(-32768, Math.min(32767, Math.round(x * 32767))), true);
+        view.setInt16(p, Math.max(-32768, Math.min(32767, Math.round(x * 32768))), true);
         p += 2;
       }
     }
