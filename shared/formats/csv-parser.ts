@@ -144,6 +144,10 @@ export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
       if (!(sampleRateHz > 0) || !Number.isFinite(sampleRateHz)) {
         throw new CaptureFormatError('zero_rate', `${name}: the time column does not advance, so the sample rate is zero; export with a time column in seconds or milliseconds`);
       }
+      if (L.timeUnitSource === 'default' && sampleRateHz < 1000 && sampleRateHz * 1000 >= 1000) {
+        throw new CaptureFormatError('rate_out_of_range',
+          `${name}: read as seconds, the time column gives ${sampleRateHz.toPrecision(4)} Hz (below 1 kHz); if it is in milliseconds, add --time-unit ms`);
+      }
       checkSampleRate(sampleRateHz, name);
       return {
         format: 'csv',
