@@ -69,9 +69,19 @@ function oneOf<T extends string>(flag: string, value: string | undefined, allowe
 
 /** Parses the command line (without node and script). Throws UsageError naming the bad flag. */
 export function parseGenerateArgs(argv: string[]): GenerateRequest {
+  // util.parseArgs reads "-12" after a flag as another flag; join negative numbers to their flag.
+  const args: string[] = [];
+  for (let i = 0; i < argv.length; i++) {
+    const name = argv[i].startsWith('--') ? argv[i].slice(2) : '';
+    const spec = (FLAGS as Record<string, { type: string }>)[name];
+    if (spec?.type === 'string' && i + 1 < argv.length && /^-\d|^-\.\d/.test(argv[i + 1])) {
+      args.push(`${argv[i]}=${argv[i + 1]}`);
+      i++;
+    } else args.push(argv[i]);
+  }
   let parsed;
   try {
-    parsed = parseArgs({ args: argv, options: FLAGS, allowPositionals: false, strict: true });
+    parsed = parseArgs({ args, options: FLAGS, allowPositionals: false, strict: true });
   } catch (error) {
     throw new UsageError(`${(error as Error).message.split('\n')[0]}; run with --help for the flags`);
   }
