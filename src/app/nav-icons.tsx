@@ -1,18 +1,18 @@
 import type { NavSection } from '../../shared/auth/roles';
 
-const common = {
+const base = {
   viewBox: '0 0 20 20',
   fill: 'none',
   stroke: 'currentColor',
   strokeWidth: 1.6,
   strokeLinecap: 'round' as const,
   strokeLinejoin: 'round' as const,
-  className: 'size-4 shrink-0',
   'aria-hidden': true,
 };
 
 /** Small line drawings for the navigation, drawn for Crankwise. */
-export function NavIcon({ section }: { section: NavSection }) {
+export function NavIcon({ section, className = 'size-4' }: { section: NavSection; className?: string }) {
+  const common = { ...base, className: `shrink-0 ${className}` };
   switch (section) {
     case 'cases':
       return (

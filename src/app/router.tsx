@@ -60,7 +60,7 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
                 { path: paths.cases, element: <CasesRoute /> },
                 { path: paths.driveLibrary, element: <DriveLibraryRoute /> },
                 { path: paths.bearings, element: <BearingsRoute /> },
-                { path: paths.capturePlanner, element: <CapturePlannerRoute /> },
+                { path: paths.capturePlanner, element: <CapturePlannerRoute />, handle: { fullSafetyNote: true } },
                 { path: paths.team, element: <TeamRoute />, loader: teamLoader(queryClient) },
                 {
                   path: paths.outbox,

@@ -1,7 +1,7 @@
 import { Suspense } from 'react';
 import type { QueryClient } from '@tanstack/react-query';
 import { useSuspenseQuery } from '@tanstack/react-query';
-import { Form, NavLink, Outlet, useNavigation, type LoaderFunctionArgs } from 'react-router-dom';
+import { Form, NavLink, Outlet, useMatches, useNavigation, type LoaderFunctionArgs } from 'react-router-dom';
 import { navSectionsFor, NAV_LABELS, ROLE_LABELS, type NavSection } from '../../../shared/auth/roles';
 import type { UserDto } from '../../../shared/schemas/users';
 import { Badge } from '../../components/ui/badge';
@@ -29,15 +29,15 @@ function NavGroup({ label, sections }: { label: string; sections: NavSection[] }
   if (sections.length === 0) return null;
   return (
     <div>
-      <p className="px-3 pb-1 text-[0.7rem] font-semibold uppercase tracking-wider text-muted-foreground/80">{label}</p>
-      <ul className="grid gap-0.5">
+      <p className="hidden px-3 pb-1 text-[0.7rem] font-semibold uppercase tracking-wider text-muted-foreground/80 md:block">{label}</p>
+      <ul className="flex gap-0.5 md:grid">
         {sections.map((section) => (
           <li key={section}>
             <NavLink
               to={sectionPaths[section]}
               className={({ isActive }) =>
                 cn(
-                  'flex items-center gap-2.5 rounded-md px-3 py-1.5 text-sm text-foreground/80 transition-colors hover:bg-card hover:text-foreground',
+                  'flex items-center gap-2.5 whitespace-nowrap rounded-md px-3 py-1.5 text-sm text-foreground/80 transition-colors hover:bg-card hover:text-foreground',
                   'focus-visible:outline-2 focus-visible:outline-ring',
                   isActive && 'bg-card font-medium text-foreground shadow-xs ring-1 ring-border',
                 )
@@ -53,9 +53,19 @@ function NavGroup({ label, sections }: { label: string; sections: NavSection[] }
   );
 }
 
-function UserBlock({ user }: { user: UserDto }) {
+function SignOutButton({ className }: { className?: string }) {
   const navigation = useNavigation();
   const signingOut = navigation.state !== 'idle' && navigation.formAction === paths.signOut;
+  return (
+    <Form method="post" action={paths.signOut} className={className}>
+      <Button type="submit" variant="outline" size="sm" className="w-full" pending={signingOut}>
+        Sign out
+      </Button>
+    </Form>
+  );
+}
+
+function UserBlock({ user }: { user: UserDto }) {
   return (
     <div className="grid gap-2 border-t border-border pt-4">
       <div className="px-1">
@@ -64,11 +74,7 @@ function UserBlock({ user }: { user: UserDto }) {
         </p>
         <p className="text-xs text-muted-foreground">{ROLE_LABELS[user.role]}</p>
       </div>
-      <Form method="post" action={paths.signOut}>
-        <Button type="submit" variant="outline" size="sm" className="w-full" pending={signingOut}>
-          Sign out
-        </Button>
-      </Form>
+      <SignOutButton />
     </div>
   );
 }
@@ -81,22 +87,29 @@ export function AppLayout() {
   const work = sections.filter((s) => WORK_SECTIONS.includes(s));
   const shop = sections.filter((s) => !WORK_SECTIONS.includes(s));
   const navigation = useNavigation();
+  // A page that shows the full cautions itself (route handle `fullSafetyNote`) needs no footer copy.
+  const showsFullSafetyNote = useMatches().some((m) => (m.handle as { fullSafetyNote?: boolean } | undefined)?.fullSafetyNote);
   return (
     <div className="flex min-h-screen flex-col md:flex-row">
-      <aside className="flex shrink-0 flex-col gap-5 border-b border-border bg-sidebar px-3 py-4 md:sticky md:top-0 md:h-screen md:w-60 md:border-r md:border-b-0">
-        <div className="px-2">
-          <Wordmark />
-          <div className="mt-2 flex flex-wrap items-center gap-1.5 text-xs text-muted-foreground">
-            <span className="truncate">{user.shop.name}</span>
-            {user.shop.isDemo ? <Badge variant="warning">Demo shop</Badge> : null}
+      <aside className="shrink-0 border-b border-border bg-sidebar md:w-60 md:border-r md:border-b-0">
+        <div className="flex flex-col gap-3 px-3 py-3 md:sticky md:top-0 md:h-screen md:gap-5 md:py-4">
+          <div className="flex items-start justify-between gap-3 px-2">
+            <div className="min-w-0">
+              <Wordmark />
+              <div className="mt-1.5 flex flex-wrap items-center gap-1.5 text-xs text-muted-foreground">
+                <span className="truncate">{user.shop.name}</span>
+                {user.shop.isDemo ? <Badge variant="warning">Demo shop</Badge> : null}
+              </div>
+            </div>
+            <SignOutButton className="md:hidden" />
           </div>
-        </div>
-        <nav aria-label="Main" className="grid gap-4">
-          <NavGroup label="Workbench" sections={work} />
-          <NavGroup label="Shop" sections={shop} />
-        </nav>
-        <div className="mt-auto">
-          <UserBlock user={user} />
+          <nav aria-label="Main" className="flex gap-1 overflow-x-auto md:grid md:gap-4 md:overflow-visible">
+            <NavGroup label="Workbench" sections={work} />
+            <NavGroup label="Shop" sections={shop} />
+          </nav>
+          <div className="mt-auto hidden md:block">
+            <UserBlock user={user} />
+          </div>
         </div>
       </aside>
       <div className="flex min-w-0 flex-1 flex-col">
@@ -109,9 +122,11 @@ export function AppLayout() {
             <Outlet />
           </Suspense>
         </main>
-        <footer className="mx-auto w-full max-w-6xl px-4 pb-6 sm:px-8">
-          <SafetyNote compact />
-        </footer>
+        {showsFullSafetyNote ? null : (
+          <footer className="mx-auto w-full max-w-6xl px-4 pb-6 sm:px-8">
+            <SafetyNote compact />
+          </footer>
+        )}
       </div>
     </div>
   );

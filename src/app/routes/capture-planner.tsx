@@ -1,3 +1,4 @@
+import { NavIcon } from '../nav-icons';
 import { PlaceholderPage } from './placeholder';
 import { SafetyNote } from './safety-note';
 
@@ -5,6 +6,7 @@ import { SafetyNote } from './safety-note';
 export function CapturePlannerRoute() {
   return (
     <PlaceholderPage
+      icon={<NavIcon section="capture-planner" className="size-10" />}
       title="Capture planner"
       description="Plan the recordings for a case: probe points near each suspect, engine conditions, and the reference channel."
       emptyTitle="No capture plans yet"

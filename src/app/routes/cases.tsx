@@ -1,9 +1,11 @@
+import { NavIcon } from '../nav-icons';
 import { PlaceholderPage } from './placeholder';
 
 /** Cases: one per repair order (DESIGN.md "Domain model"); the list arrives with the Cases work. */
 export function CasesRoute() {
   return (
     <PlaceholderPage
+      icon={<NavIcon section="cases" className="size-10" />}
       title="Cases"
       description="One case per repair order: the vehicle, the complaint, its captures, the ranked suspects and the timeline."
       emptyTitle="No cases yet"

@@ -1,6 +1,7 @@
 import type { QueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { requireSection } from '../route-guards';
+import { NavIcon } from '../nav-icons';
 import { PlaceholderPage } from './placeholder';
 
 /** Admins only. */
@@ -15,6 +16,7 @@ export const shopSetupLoader =
 export function ShopSetupRoute() {
   return (
     <PlaceholderPage
+      icon={<NavIcon section="shop-setup" className="size-10" />}
       title="Shop setup"
       description="Your shop's name and its defaults for new cases and captures."
       emptyTitle="No shop settings to change yet"

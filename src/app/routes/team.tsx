@@ -25,7 +25,7 @@ export function TeamRoute() {
   return (
     <>
       <PageHeader title="Team" description="Who can sign in to your shop, and what each person may do." />
-      <div className="grid gap-6">
+      <div className="flex flex-col gap-6">
         <Card>
           <CardHeader>
             <CardTitle>Users</CardTitle>

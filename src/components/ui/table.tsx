@@ -4,7 +4,7 @@ import { cn } from '../../lib/cn';
 /** A table that scrolls sideways inside its card on narrow screens. */
 export function Table({ className, ...props }: HTMLAttributes<HTMLTableElement>) {
   return (
-    <div className="w-full overflow-x-auto">
+    <div className="relative w-full overflow-x-auto">
       <table className={cn('w-full caption-bottom border-collapse text-sm', className)} {...props} />
     </div>
   );

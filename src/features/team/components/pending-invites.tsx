@@ -25,7 +25,7 @@ export function PendingInvites({ now = new Date() }: { now?: Date }) {
   }
   return (
     <>
-      <Table>
+      <Table className="min-w-[36rem]">
         <TableHeader>
           <TableRow>
             <TableHead>E-mail</TableHead>
@@ -42,7 +42,7 @@ export function PendingInvites({ now = new Date() }: { now?: Date }) {
             const expired = new Date(invite.expiresAt) <= now;
             return (
               <TableRow key={invite.id}>
-                <TableCell className="break-all font-medium">{invite.email}</TableCell>
+                <TableCell className="font-medium">{invite.email}</TableCell>
                 <TableCell>{ROLE_LABELS[invite.role]}</TableCell>
                 <TableCell className="font-mono text-xs tabular-nums">{dateTime.format(new Date(invite.createdAt))}</TableCell>
                 <TableCell>

@@ -45,7 +45,7 @@ export function UsersTable({ currentUserId }: { currentUserId: number }) {
   }
   return (
     <>
-      <Table>
+      <Table className="min-w-[44rem]">
         <TableHeader>
           <TableRow>
             <TableHead>Name</TableHead>
@@ -66,7 +66,7 @@ export function UsersTable({ currentUserId }: { currentUserId: number }) {
                 <TableCell className="font-medium">
                   {user.name} {self ? <Badge variant="outline">you</Badge> : null}
                 </TableCell>
-                <TableCell className="break-all">{user.email}</TableCell>
+                <TableCell>{user.email}</TableCell>
                 <TableCell>
                   <Select
                     aria-label={`Role of ${user.name}`}
