@@ -3,10 +3,11 @@ import { createBrowserRouter, redirect, type RouteObject } from 'react-router-do
 import { LoadingState } from '../components/ui/spinner';
 import { paths } from './paths';
 import { AppLayout, appLayoutLoader } from './routes/app-layout';
-import { BearingsRoute } from './routes/bearings';
+import { BearingsRoute, bearingsLoader } from './routes/bearings';
 import { CapturePlannerRoute } from './routes/capture-planner';
 import { CasesRoute } from './routes/cases';
 import { DriveLibraryRoute } from './routes/drive-library';
+import { EngineRoute, engineLoader } from './routes/engine';
 import { InviteAcceptRoute, inviteAcceptLoader } from './routes/invite-accept';
 import { NotFoundRoute } from './routes/not-found';
 import { OutboxMessageRoute, outboxMessageLoader } from './routes/outbox-message';
@@ -59,7 +60,8 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
                 { index: true, loader: () => redirect(paths.cases) },
                 { path: paths.cases, element: <CasesRoute /> },
                 { path: paths.driveLibrary, element: <DriveLibraryRoute /> },
-                { path: paths.bearings, element: <BearingsRoute /> },
+                { path: `${paths.driveLibrary}/:engineId`, element: <EngineRoute />, loader: engineLoader(queryClient) },
+                { path: paths.bearings, element: <BearingsRoute />, loader: bearingsLoader(queryClient) },
                 { path: paths.capturePlanner, element: <CapturePlannerRoute />, handle: { fullSafetyNote: true } },
                 { path: paths.team, element: <TeamRoute />, loader: teamLoader(queryClient) },
                 {
