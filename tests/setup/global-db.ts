@@ -15,11 +15,13 @@ declare module 'vitest' {
     databaseUrl: string;
     /** A separate database for the e2e tests' built server, so the two projects never share rows. */
     e2eDatabaseUrl: string;
+    /** An empty database (not migrated) for tests that run migrations up and down. */
+    scratchDatabaseUrl: string;
   }
 }
 
 interface Shared {
-  ready: Promise<{ db: RunningDatabase; urls: { databaseUrl: string; e2eDatabaseUrl: string } }>;
+  ready: Promise<{ db: RunningDatabase; urls: { databaseUrl: string; e2eDatabaseUrl: string; scratchDatabaseUrl: string } }>;
   refs: number;
 }
 
@@ -32,6 +34,7 @@ async function prepare(): Promise<Shared['ready'] extends Promise<infer T> ? T :
   const log = (m: string) => process.stderr.write(`[test-db] ${m}\n`);
   const db = await startDatabase({ name: 'test-db', port, dataDir, database: 'crankwise_test', fresh: true, log });
   const e2e = await startDatabase({ name: 'test-db', port, dataDir, database: 'crankwise_e2e', fresh: true });
+  const scratch = await startDatabase({ name: 'test-db', port, dataDir, database: 'crankwise_scratch', fresh: true });
   for (const url of [db.url, e2e.url]) {
     const sequelize = await createSequelize(url);
     try {
@@ -40,7 +43,7 @@ async function prepare(): Promise<Shared['ready'] extends Promise<infer T> ? T :
       await sequelize.close();
     }
   }
-  return { db, urls: { databaseUrl: db.url, e2eDatabaseUrl: e2e.url } };
+  return { db, urls: { databaseUrl: db.url, e2eDatabaseUrl: e2e.url, scratchDatabaseUrl: scratch.url } };
 }
 
 /** Starts (or reuses) the test database and provides its URLs to the project's tests. */
@@ -54,6 +57,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
   const { urls } = await shared.ready;
   project.provide('databaseUrl', urls.databaseUrl);
   project.provide('e2eDatabaseUrl', urls.e2eDatabaseUrl);
+  project.provide('scratchDatabaseUrl', urls.scratchDatabaseUrl);
   process.env.TEST_DATABASE_URL = urls.databaseUrl;
   process.env.TEST_E2E_DATABASE_URL = urls.e2eDatabaseUrl;
   return async () => {
