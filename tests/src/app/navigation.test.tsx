@@ -25,10 +25,10 @@ describe('app navigation', () => {
   });
 
   it('sends a visitor without a session to sign-in and remembers the page asked for', async () => {
-    const { router } = renderApp('/bearings');
+    const { router } = renderApp('/capture-planner');
     expect(await screen.findByRole('heading', { name: 'Sign in' })).toBeTruthy();
     expect(router.state.location.pathname).toBe('/sign-in');
-    expect(router.state.location.search).toBe('?next=%2Fbearings');
+    expect(router.state.location.search).toBe('?next=%2Fcapture-planner');
   });
 
   it('tells a technician who opens the Team address that it is for admins', async () => {
@@ -38,9 +38,17 @@ describe('app navigation', () => {
     expect(screen.getByRole('navigation', { name: 'Main' })).toBeTruthy();
   });
 
-  it('shows the safety note under the pages and the full cautions on the capture planner', async () => {
+  it('shows the safety note under the pages', async () => {
+    renderApp('/cases', { user: makeUser({ role: 'tech' }) });
+    const note = await screen.findByRole('note');
+    expect(note.textContent).toMatch(/keep hands, tools, leads, clothing and hair away from\s+belts, pulleys and fans/);
+    expect(note.textContent).toMatch(/Electric cooling fans can start with the engine off/);
+  });
+
+  it('shows the full cautions on the capture planner instead of the footer note', async () => {
     renderApp('/capture-planner', { user: makeUser({ role: 'tech' }) });
     expect(await screen.findByText(/Electric cooling fans can start on their own/)).toBeTruthy();
-    expect(screen.getByText(/keep hands, tools, leads, clothing and hair away/)).toBeTruthy();
+    expect(screen.getByText(/attach pickups with the\s+engine off/)).toBeTruthy();
+    expect(screen.getAllByRole('note')).toHaveLength(1);
   });
 });

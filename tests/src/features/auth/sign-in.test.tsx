@@ -29,13 +29,13 @@ describe('sign-in page', () => {
         return HttpResponse.json({ user: me });
       }),
     );
-    const { router } = renderApp('/sign-in?next=%2Fbearings');
+    const { router } = renderApp('/sign-in?next=%2Fcapture-planner');
     const user = userEvent.setup();
     await user.type(await screen.findByLabelText('E-mail'), '  Ada@Lugnut-Garage.test ');
     await user.type(screen.getByLabelText('Password'), 'correct horse battery');
     await user.click(screen.getByRole('button', { name: 'Sign in' }));
-    expect(await screen.findByRole('heading', { name: 'Bearings' })).toBeTruthy();
-    expect(router.state.location.pathname).toBe('/bearings');
+    expect(await screen.findByRole('heading', { name: 'Capture planner' })).toBeTruthy();
+    expect(router.state.location.pathname).toBe('/capture-planner');
     // The shared schema trims and lower-cases the address before it is sent.
     expect(received).toEqual({ body: { email: 'ada@lugnut-garage.test', password: 'correct horse battery' }, csrf: 'csrf-test-token' });
   });
@@ -73,7 +73,8 @@ describe('sign-in page', () => {
     );
     const { router } = renderApp('/cases', { user: makeUser({ role: 'tech' }) });
     const user = userEvent.setup();
-    const signOutButton = await screen.findByRole('button', { name: 'Sign out' });
+    // The phone header and the sidebar each carry a Sign out button (CSS shows one); use the first.
+    const [signOutButton] = await screen.findAllByRole('button', { name: 'Sign out' });
     // From here on the server no longer knows the session.
     server.use(http.get('*/api/auth/me', () => apiError(401, 'unauthenticated', 'Sign in first.')));
     await user.click(signOutButton);
