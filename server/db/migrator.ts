@@ -23,7 +23,7 @@ export function createMigrator(sequelize: Sequelize, logger?: Logger) {
     storage: new SequelizeStorage({ sequelize }),
     logger: logger
       ? {
-          info: (e) => logger.info('migration', e),
+          info: (e) => logger.debug('migration', e),
           warn: (e) => logger.warn('migration', e),
           error: (e) => logger.error('migration', e),
           debug: (e) => logger.debug('migration', e),

@@ -15,6 +15,11 @@ declare global {
 
 const SAFE_ID = /^[A-Za-z0-9._-]{8,64}$/;
 
+/** The path without its query, with one-time tokens (long base64url segments) masked: never log a secret. */
+export function loggablePath(url: string): string {
+  return (url.split('?')[0] ?? '').replace(/[A-Za-z0-9_-]{20,}/g, ':token');
+}
+
 /** Attaches req.id (a trusted incoming X-Request-Id, else a new UUID) and req.log. */
 export function requestId(logger: Logger): RequestHandler {
   return (req, res, next) => {
@@ -27,7 +32,7 @@ export function requestId(logger: Logger): RequestHandler {
       const ms = Number(process.hrtime.bigint() - started) / 1e6;
       req.log.debug('request', {
         method: req.method,
-        path: req.originalUrl.split('?')[0],
+        path: loggablePath(req.originalUrl),
         status: res.statusCode,
         ms: Math.round(ms),
         userId: req.user?.id,

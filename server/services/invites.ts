@@ -41,7 +41,13 @@ export async function createInvite(ctx: AppContext, admin: User, input: CreateIn
       { transaction },
     );
     const mail = inviteMail(shop.name, ROLE_LABELS[input.role], `${ctx.publicUrl}/invite/${token}`, ttlHours);
-    await ctx.mailer.send({ to: input.email, ...mail, shopId: shop.id });
+    try {
+      await ctx.mailer.send({ to: input.email, ...mail, shopId: shop.id });
+    } catch (error) {
+      // Rolls the invite back: no invitation exists that its invitee never received.
+      ctx.logger.error('invitation mail failed', { error, task: 'invite' });
+      throw new AppError(502, 'mail_failed', 'The invitation e-mail could not be sent; check the mail settings (MAIL_URL) and try again');
+    }
     return invite;
   });
 }
