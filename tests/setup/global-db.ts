@@ -35,13 +35,21 @@ async function prepare(): Promise<Shared['ready'] extends Promise<infer T> ? T :
   const db = await startDatabase({ name: 'test-db', port, dataDir, database: 'crankwise_test', fresh: true, log });
   const e2e = await startDatabase({ name: 'test-db', port, dataDir, database: 'crankwise_e2e', fresh: true });
   const scratch = await startDatabase({ name: 'test-db', port, dataDir, database: 'crankwise_scratch', fresh: true });
-  for (const url of [db.url, e2e.url]) {
-    const sequelize = await createSequelize(url);
-    try {
-      await migrate(sequelize);
-    } finally {
-      await sequelize.close();
+  try {
+    for (const url of [db.url, e2e.url]) {
+      const sequelize = await createSequelize(url);
+      try {
+        await migrate(sequelize);
+      } finally {
+        await sequelize.close();
+      }
     }
+  } catch (error) {
+    // Stop what we started (else the run never exits) and report one readable line: the driver's
+    // error object carries the connection config, password included.
+    await db.stop();
+    const cause = error instanceof Error ? `${error.message}${error.cause instanceof Error ? ` (${error.cause.message})` : ''}` : String(error);
+    throw new Error(`test database set-up failed: ${cause.split('\n')[0]}`);
   }
   return { db, urls: { databaseUrl: db.url, e2eDatabaseUrl: e2e.url, scratchDatabaseUrl: scratch.url } };
 }

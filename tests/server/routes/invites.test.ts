@@ -94,4 +94,18 @@ describe('invitations', () => {
     expect((await admin.delete(`/api/invites/${invite.id}`)).status).toBe(204);
     expect((await (await t.agent()).get(`/api/invites/${token}/info`)).status).toBe(400);
   });
+
+  it('writes no invitation when the e-mail cannot be sent (502 mail_failed)', async () => {
+    const broken = await createTestApp({}, { mailer: { send: () => Promise.reject(new Error('SMTP down')), close: () => {} } });
+    try {
+      const brokenAdmin = await broken.signIn(shop.users.admin.email, shop.users.admin.password);
+      const email = `unlucky.${uniq()}@example.test`;
+      const res = await brokenAdmin.post('/api/invites', { email, role: 'tech' });
+      expect(res.status).toBe(502);
+      expect(res.body.error.code).toBe('mail_failed');
+      expect(await Invite.count({ where: { email } })).toBe(0);
+    } finally {
+      await broken.close();
+    }
+  });
 });
