@@ -24,14 +24,25 @@ const SHAFT: Record<DriveRegime, RelativeWindow> = {
   loose: { below: -0.1, above: 0.01 },
 };
 
-/** Rolling-slip allowance alone (no creep): what is left once the part's speed is known. */
+/**
+ * Rolling-slip allowance alone (no creep): what is left once the part's speed is known. The cage
+ * lag raises the turning race's line (inner ring about +1.3 %, an idler's outer ring about +3 %)
+ * and lowers the fixed race's, the cage's and the ball's (REFERENCES.md §4); half a percent of
+ * margin on the other side.
+ */
 const ROLLING: Record<'turning' | 'turningOuter' | 'fixed', RelativeWindow> = {
-  turning: { below: -0.01, above: 0.025 },
-  turningOuter: { below: -0.01, above: 0.035 },
-  fixed: { below: -0.025, above: 0.01 },
+  turning: { below: -0.005, above: 0.02 },
+  turningOuter: { below: -0.005, above: 0.03 },
+  fixed: { below: -0.02, above: 0.005 },
 };
 
+/** Belt-pass lines: the belt runs at its driving groove's surface speed, less a little creep. */
 const BELT_PASS: RelativeWindow = { below: -0.02, above: 0.005 };
+
+/** Creep of friction belts, per stage: 0.5–1 % normal (ISO 5292 via REFERENCES.md §5), up to 3 % worn [practice]. */
+const CREEP_RANGE: [number, number] = [0, 0.03];
+/** Cage lag of rolling elements: about 1–2 % (REFERENCES.md §4, from memory); half a percent at least under load. */
+const CAGE_LAG_RANGE: [number, number] = [0.005, 0.02];
 
 /**
  * The relative window of a line of the given role. `outerRingTurns` selects the idler's wider
@@ -54,6 +65,28 @@ export function relativeWindow(role: LineRole, regime: DriveRegime, outerRingTur
   const rolling = ROLLING[role === 'fixed' ? 'fixed' : outerRingTurns ? 'turningOuter' : 'turning'];
   // Creep and rolling slip add: below = creep below + rolling below; above = creep above + rolling above.
   return { below: creep.below + rolling.below, above: creep.above + rolling.above };
+}
+
+/**
+ * The range of relative deviations from nominal that the kinematics make likely for a line (the
+ * core of its window, where a reading is fully plausible): belt creep per stage 0–3 % (none for
+ * fixed ratios, up to 10 % for loose parts, or the known slip), and for bearing lines the cage lag
+ * of 0.5–2 %, which lowers the fixed race, cage and ball lines by the lag and raises the turning
+ * race by the lag × `turningShare` (the other race's factor over this one's: BPFO/BPFI for an inner
+ * ring, BPFI/BPFO for an outer ring; REFERENCES.md §1, §4). Default share 0.6 (inner), 1.6 (outer).
+ */
+export function likelyDeviation(role: LineRole, regime: DriveRegime, outerRingTurns = false, knownSlip?: number, beltStages = 1, turningShare?: number): [number, number] {
+  const stages = Math.max(1, beltStages);
+  const creep: [number, number] = knownSlip !== undefined ? [knownSlip, knownSlip]
+    : regime === 'fixed' ? [0, 0]
+      : regime === 'loose' ? [0, -SHAFT.loose.below]
+        : [CREEP_RANGE[0], CREEP_RANGE[1] * stages];
+  if (role === 'belt') return [-CREEP_RANGE[1] * Math.max(0, beltStages - 1), 0];
+  if (role === 'shaft') return [-creep[1], -creep[0]];
+  const [lagLo, lagHi] = CAGE_LAG_RANGE;
+  if (role === 'fixed') return [(1 - creep[1]) * (1 - lagHi) - 1, (1 - creep[0]) * (1 - lagLo) - 1];
+  const share = turningShare ?? (outerRingTurns ? 1.6 : 0.6);
+  return [(1 - creep[1]) * (1 + lagLo * share) - 1, (1 - creep[0]) * (1 + lagHi * share) - 1];
 }
 
 /** Absolute window [lo, hi] in orders around a nominal order. */

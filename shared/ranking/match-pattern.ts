@@ -20,7 +20,7 @@ export interface PatternLine {
 
 /** The best reading of one pattern in one set of spectra. */
 export interface PatternMatch {
-  /** Unbounded evidence total (0 when nothing matched); the score maps it to 0–1. */
+  /** Evidence 0–1: the weighted line strengths found over those a complete pattern would show, times the plausibility of its slip. */
   total: number;
   /** Measured fundamental (the 1× of the fault's carrier) in orders. */
   fundamental: number;
@@ -40,14 +40,14 @@ export interface PatternSearch {
   sidebands: CandidateLine[];
   /** Window of the modulating order (part shaft speed, or cage speed), for sidebands. */
   modulatorWindow?: [number, number];
-  /** Relative window of the fundamental (below, above) used for the plausibility of the deviation. */
-  relative: { below: number; above: number };
+  /** Relative window of the fundamental (below, above) and the deviations the kinematics make likely, for the plausibility of a reading. */
+  relative: { below: number; above: number; likely: [number, number] };
   cyclesAveraged: number;
 }
 
 const FOUND_DB = 6;
 const HARMONIC_WEIGHT = [1, 0.8, 0.6, 0.5];
-const SIDEBAND_WEIGHT = 0.25;
+const SIDEBAND_WEIGHT = 0.2;
 
 function combWeight(offCombFound: number): number {
   if (offCombFound >= 2) return 0.8;
@@ -85,6 +85,20 @@ function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spe
   const cw = combWeight(offCombFound);
   const lines: PatternLine[] = [];
   let total = 0;
+  // The most a complete pattern could collect here: every carrier the spectrum holds, and the
+  // sidebands as far as their carrier's strength makes them expected (a sideband sits about
+  // 8–12 dB below its carrier, so beside a weak carrier its absence proves little).
+  let possible = 0;
+  for (const line of search.carriers) if (line.harmonic * f <= top) possible += HARMONIC_WEIGHT[line.harmonic - 1] ?? 0.4;
+  if (search.modulatorWindow) {
+    for (const sb of search.sidebands) {
+      const at = (sb.carrierHarmonic ?? 1) * f + sb.sideband * (search.modulatorWindow[0] + search.modulatorWindow[1]) / 2;
+      if (!(at > 0 && at <= top)) continue;
+      const carrier = carriers.find((c) => c.h === sb.carrierHarmonic);
+      const expectation = carrier ? Math.max(0.3, Math.min(1, (carrier.found.snrDb - 8) / 12)) : 0.3;
+      possible += expectation * SIDEBAND_WEIGHT;
+    }
+  }
   for (const c of carriers) {
     const onComb = isComb(c.found.order);
     const weight = (HARMONIC_WEIGHT[c.h - 1] ?? 0.4) * (onComb ? cw : 1);
@@ -92,21 +106,32 @@ function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spe
     lines.push({ line: c.line, found: c.found, onComb, cycleGain: gain(c.found.order), weight });
   }
   for (const s of sidebands) {
+    // An engine line where a sideband should be confirms nothing.
     const onComb = isComb(s.found.order);
-    const weight = SIDEBAND_WEIGHT * (onComb ? cw : 1);
+    const weight = SIDEBAND_WEIGHT * (onComb ? 0.2 : 1);
     total += weight * lineStrength(s.found.snrDb);
     lines.push({ line: s.line, found: s.found, onComb, cycleGain: gain(s.found.order), weight });
   }
-  // Plausibility of the fundamental's deviation from nominal: full in the middle of the window,
-  // down to 0.7 at its edges, so that of two near-equal ratios the closer one is preferred.
+  // Plausibility of the fundamental's deviation from nominal: full where the kinematics expect it
+  // (creep and cage lag), falling to 0.4 at the window's edges, so that a stray impulsive source
+  // or a near-equal ratio that needs an unlikely slip counts less.
+  // Judge the fundamental the matched lines imply (least squares over harmonics), not the trial
+  // value that found them, so a trial inside the window cannot vouch for lines outside it.
   const nominal = search.carriers.find((c) => c.harmonic === 1)?.nominalOrder ?? search.carriers[0].nominalOrder / search.carriers[0].harmonic;
-  const dev = f / nominal - 1;
-  const centre = (search.relative.below + search.relative.above) / 2;
-  const half = Math.max(1e-6, (search.relative.above - search.relative.below) / 2);
-  const plausibility = 1 - 0.3 * Math.min(1, ((dev - centre) / half) ** 2);
+  const fitted = carriers.length > 0
+    ? carriers.reduce((sum, c) => sum + c.h * c.found.order, 0) / carriers.reduce((sum, c) => sum + c.h * c.h, 0)
+    : f;
+  const dev = fitted / nominal - 1;
+  const { below, above, likely } = search.relative;
+  const slack = 0.5 * res / nominal;
+  let outside = 0;
+  if (dev < likely[0] - slack) outside = (likely[0] - slack - dev) / Math.max(1e-6, likely[0] - slack - below);
+  else if (dev > likely[1] + slack) outside = (dev - likely[1] - slack) / Math.max(1e-6, above - likely[1] - slack);
+  const plausibility = 1 - 0.6 * Math.min(1, outside) ** 2;
+  const completeness = possible > 0 ? Math.min(1, total / possible) : 0;
   return {
-    total: total * plausibility,
-    fundamental: f,
+    total: completeness * plausibility,
+    fundamental: fitted,
     harmonicsFound: carriers.filter((c) => c.found.snrDb >= FOUND_DB).length,
     offCombFound,
     sidebandsFound: sidebands.filter((s) => s.found.snrDb >= FOUND_DB).length,

@@ -7,7 +7,7 @@
 import type { MatchedLine, OrderSpectrum, RankingEntry, RankingInput } from '../analysis/types';
 import type { BearingTable } from '../drive/bearing-table';
 import { candidateLines, windowOf } from '../drive/candidate-lines';
-import { relativeWindow } from '../drive/line-windows';
+import { likelyDeviation, relativeWindow } from '../drive/line-windows';
 import type { CandidateLine, ComponentCandidates, DriveDocument, Fault } from '../drive/types';
 import { estimateSlip, type SlipEstimate } from './estimate-slip';
 import { evidenceSentence } from './evidence';
@@ -22,8 +22,6 @@ export interface RankOptions {
 }
 
 const COMPONENT_FAULTS: Fault[] = ['shaft', 'outer_race', 'inner_race', 'ball', 'cage'];
-/** Evidence total at which the score reaches 1 − 1/e ≈ 0.63. */
-const SCORE_SCALE = 1.5;
 /** Minimum score for an entry to be considered when naming indistinguishable parts. */
 const INDISTINGUISHABLE_MIN_SCORE = 0.15;
 
@@ -42,10 +40,15 @@ function searchFor(cc: ComponentCandidates, fault: Fault, cyclesAveraged: number
   const carriers = lines.filter((l) => l.sideband === 0);
   const sidebands = lines.filter((l) => l.sideband !== 0);
   const role = carriers[0]?.role ?? 'shaft';
-  let relative = relativeWindow(role, cc.regime, cc.rotatingRing === 'outer', slip, cc.beltStages);
-  if (fault === 'belt' && carriers[0]) {
+  const outer = cc.rotatingRing === 'outer';
+  // The turning race rises by the cage lag times the other race's share (REFERENCES.md §1, §4).
+  const f = cc.factors;
+  const share = f && role === 'turning' ? (fault === 'inner_race' ? f.bpfo / f.bpfi : f.bpfi / f.bpfo) : undefined;
+  const likely = likelyDeviation(role, cc.regime, outer, slip, cc.beltStages, share);
+  let relative = { ...relativeWindow(role, cc.regime, outer, slip, cc.beltStages), likely };
+  if (carriers[0]) {
     const [lo, hi] = carriers[0].window;
-    relative = { below: lo / carriers[0].nominalOrder - 1, above: hi / carriers[0].nominalOrder - 1 };
+    relative = { below: lo / carriers[0].nominalOrder - 1, above: hi / carriers[0].nominalOrder - 1, likely };
   }
   let modulatorWindow: [number, number] | undefined;
   if (sidebands.length > 0) {
@@ -92,8 +95,9 @@ function nearShaftHarmonic(cc: ComponentCandidates, fault: Fault): number | null
 
 function scoreOne(cc: ComponentCandidates, fault: Fault, input: RankingInput, slip: SlipEstimate | null): Scored {
   const match = matchFault(cc, fault, input, slip);
-  const total = match.total * (1 + 0.15 * Math.min(2, match.confirmations));
-  const score = Math.round(1000 * (1 - Math.exp(-total / SCORE_SCALE))) / 1000;
+  // Seen in other envelope bands as well: a little more credible (at most 1 when confirmed twice).
+  const total = match.total * (0.9 + 0.05 * Math.min(2, match.confirmations));
+  const score = Math.round(1000 * Math.min(1, total)) / 1000;
   const matched = toMatched(match);
   const strongest = match.lines.filter((l) => l.line.sideband === 0).sort((a, b) => b.found.snrDb - a.found.snrDb)[0];
   const fundamental = cc.lines.find((l) => l.fault === fault && l.sideband === 0 && l.harmonic === 1);

@@ -86,7 +86,10 @@ export function lineCycleGain(order: number, cycles: number): number {
   return cycles >= 1 ? cycleCombGain(order, cycles) : 1;
 }
 
-/** Maps an SNR in dB to a strength 0–1: nothing below 3 dB, full at 21 dB and above. */
+/**
+ * Maps an SNR in dB to a strength 0–1: nothing at 3 dB or below, 0.5 at about 11 dB, 0.86 at
+ * 27 dB; never saturating, so a stronger line always counts a little more.
+ */
 export function lineStrength(snrDb: number): number {
-  return Math.max(0, Math.min(1, (snrDb - 3) / 18));
+  return snrDb <= 3 ? 0 : 1 - Math.exp(-(snrDb - 3) / 12);
 }

@@ -74,3 +74,46 @@ export function synthInput(orderLines: SynthLine[], envelopeLines: SynthLine[][]
   }));
   return { orders, envelopes, cylinders: opts.cylinders ?? 4, cyclesAveraged: opts.cyclesAveraged ?? 60, meanRpm: 780 };
 }
+
+/** Lines a planted fault puts in the spectra, following the generator's physics (shared/synth/fault-signal.ts). */
+export interface PlantedLines { orders: SynthLine[]; envelope: SynthLine[]; lineOrder: number }
+
+/**
+ * The lines of one planted fault: shaft 1×/2× (raw); bearing impacts → defect harmonics in the
+ * envelope, with ±modulation sidebands (inner race on a turning inner ring, outer race on a turning
+ * outer ring: ±1× part speed; ball: ±cage speed); belt: belt-pass harmonics in both spectra.
+ * `partOrder` is the part's actual speed (ratio after creep); `slip` the cage lag (fraction).
+ */
+export function plantedLines(
+  fault: 'shaft' | 'outer_race' | 'inner_race' | 'ball' | 'cage' | 'belt',
+  partOrder: number,
+  factors: { ftf: number; bpfo: number; bpfi: number; bsf: number },
+  ring: 'inner' | 'outer',
+  slip: number,
+  snrDb = 18,
+): PlantedLines {
+  if (fault === 'shaft') return { orders: [{ order: partOrder, snrDb }, { order: 2 * partOrder, snrDb: snrDb - 6 }], envelope: [], lineOrder: partOrder };
+  if (fault === 'belt') {
+    const lines = [1, 2, 3].map((k) => ({ order: k * partOrder, snrDb: snrDb - 4 * (k - 1) }));
+    return { orders: lines, envelope: lines, lineOrder: partOrder };
+  }
+  const cage = factors.ftf * (1 - slip);
+  let rate: number; let modulation: number | null = null;
+  switch (fault) {
+    case 'outer_race': rate = ring === 'outer' ? factors.bpfo + factors.bpfi * slip : factors.bpfo * (1 - slip); if (ring === 'outer') modulation = 1; break;
+    case 'inner_race': rate = ring === 'inner' ? factors.bpfi + factors.bpfo * slip : factors.bpfi * (1 - slip); if (ring === 'inner') modulation = 1; break;
+    case 'ball': rate = 2 * factors.bsf * (1 - slip); modulation = cage; break;
+    default: rate = cage;
+  }
+  const f = rate * partOrder;
+  const envelope: SynthLine[] = [];
+  for (let k = 1; k <= 3; k += 1) {
+    envelope.push({ order: k * f, snrDb: snrDb - 3 * (k - 1) });
+    if (modulation !== null && k <= 2) {
+      envelope.push({ order: k * f - modulation * partOrder, snrDb: snrDb - 8 - 3 * (k - 1) });
+      envelope.push({ order: k * f + modulation * partOrder, snrDb: snrDb - 8 - 3 * (k - 1) });
+    }
+  }
+  if (modulation !== null) envelope.push({ order: modulation * partOrder, snrDb: snrDb - 6 });
+  return { orders: [], envelope, lineOrder: f };
+}
