@@ -34,8 +34,7 @@ describe('npm run create-shop', () => {
     const email = `owner.${uniq()}@example.test`;
     const name = `Birchfield Motor Works ${uniq()}`;
     const run = createShopCli(['--name', name, '--admin-email', email, '--admin-name', 'Ola Brandt']);
-    expect(run.stderr).toBe('');
-    expect(run.code).toBe(0);
+    expect(run.code, run.stderr).toBe(0);
     const password = /Generated password[^:]*: (\S+)/.exec(run.stdout)?.[1];
     expect(password).toBeDefined();
 
@@ -81,7 +80,7 @@ describe('npm run create-shop', () => {
   it('exits 2 when the admin e-mail already has an account, leaving no half-made shop', async () => {
     const name = `Duplicate Admin Garage ${uniq()}`;
     const run = createShopCli(['--name', name, '--admin-email', 'adam.admin@demo.crankwise.test', '--password', 'long-enough-password']);
-    expect(run.code).toBe(2);
+    expect(run.code, run.stderr).toBe(2);
     expect(run.stderr).toMatch(/already has a Crankwise account/);
     expect(await Shop.count({ where: { name } })).toBe(0);
   });
