@@ -22,3 +22,8 @@ export type Setup = z.infer<typeof SetupSchema>;
 export const SetupStatusSchema = z.object({ needsSetup: z.boolean() });
 /** `{ needsSetup }` */
 export type SetupStatus = z.infer<typeof SetupStatusSchema>;
+
+/** PATCH /api/shop (admin): rename the shop. */
+export const UpdateShopSchema = z.object({ name: ShopNameSchema }).strict();
+/** `{ name }` */
+export type UpdateShop = z.infer<typeof UpdateShopSchema>;
