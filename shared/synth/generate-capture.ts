@@ -30,14 +30,14 @@ export interface GeneratedCapture {
 export const SNR_DEFINITION =
   'SNR = 10·log10(P_fault / P_noise,band). P_fault: mean square of the planted fault signal over the capture '
   + '(without a fault, of the engine vibration). P_noise,band: power of the added white Gaussian noise inside the analysis band '
-  + '(snr.bandHz): the 2 kHz band centred on the structural resonance for bearing and belt faults (where impacts ring and the envelope '
-  + 'is taken), 0–1 kHz for shaft faults and without a fault (the raw order spectrum\'s range). The noise is white over 0 … fs/2, '
-  + 'so its total power is P_noise,band × (fs/2) / bandwidth.';
+  + '(snr.bandHz): for bearing and belt faults the 2 kHz band centred on the structural resonance, where their impacts ring and the '
+  + 'envelope is taken; for shaft faults and without a fault 0 … min(9 kHz, 0.45·fs), the band the analysis reads by default. '
+  + 'The noise is white over 0 … fs/2, so its total power is P_noise,band × (fs/2) / bandwidth.';
 
-/** The analysis band over which the SNR is defined, in Hz, clipped to 0 … fs/2. */
+/** The analysis band over which the SNR is defined, in Hz (see `SNR_DEFINITION`). */
 export function analysisBandHz(fault: GenerateOptions['fault'], resonanceHz: number, sampleRateHz: number): [number, number] {
   const nyquist = sampleRateHz / 2;
-  if (!fault || fault.fault === 'shaft') return [0, Math.min(1000, nyquist)];
+  if (!fault || fault.fault === 'shaft') return [0, Math.min(9000, 0.45 * sampleRateHz)];
   return [Math.max(0, resonanceHz - 1000), Math.min(nyquist, resonanceHz + 1000)];
 }
 
