@@ -5,7 +5,7 @@
 // `npm run db` runs it on its own until Ctrl-C.
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
-import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync, openSync, closeSync } from 'node:fs';
+import { chmodSync, existsSync, mkdirSync, readFileSync, rmSync, writeFileSync, openSync, closeSync } from 'node:fs';
 import net from 'node:net';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -161,6 +161,10 @@ function initialise(dataDir: string, log: (m: string) => void): void {
 async function provision(socketPath: string, database: string, creds: AppCredentials, fresh: boolean): Promise<void> {
   const conn = await adminConnection(socketPath);
   try {
+    // mariadb-install-db leaves password-less root accounts reachable over TCP (127.0.0.1, ::1,
+    // the host name): remove them, so root is reachable only through the socket in the data folder.
+    const roots = (await conn.query(`SELECT Host AS host FROM mysql.user WHERE User = 'root' AND Host <> 'localhost'`)) as Array<{ host: string }>;
+    for (const { host } of roots) await conn.query(`DROP USER IF EXISTS 'root'@?`, [host]);
     const db = `\`${database.replace(/`/g, '')}\``;
     if (fresh) await conn.query(`DROP DATABASE IF EXISTS ${db}`);
     await conn.query(`CREATE DATABASE IF NOT EXISTS ${db} CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
@@ -199,6 +203,8 @@ export async function startDatabase(options: StartDatabaseOptions): Promise<Runn
     }
     const server = ensureMariadb(log);
     initialise(dataDir, log);
+    // Only the owner may reach the socket (root logs in through it without a password).
+    chmodSync(dataDir, 0o700);
     rmSync(socketPath, { force: true });
     rmSync(pidFile, { force: true });
     const isRoot = process.getuid?.() === 0;
