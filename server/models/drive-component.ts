@@ -38,7 +38,8 @@ export class DriveComponent extends Model<InferAttributes<DriveComponent>, Infer
 }
 
 export function initDriveComponent(sequelize: Sequelize): void {
-  const num = { type: DataTypes.DOUBLE, allowNull: true };
+  // A fresh object per attribute: Sequelize writes the column name into it.
+  const num = () => ({ type: DataTypes.DOUBLE, allowNull: true });
   DriveComponent.init(
     {
       id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
@@ -46,19 +47,19 @@ export function initDriveComponent(sequelize: Sequelize): void {
       name: { type: DataTypes.STRING(100), allowNull: false },
       nameKey: { type: DataTypes.STRING(100), allowNull: false },
       kind: { type: DataTypes.ENUM(...COMPONENT_KINDS), allowNull: false },
-      pulleyMm: num,
+      pulleyMm: num(),
       backside: { type: DataTypes.BOOLEAN, allowNull: true },
-      fixedRatio: num,
+      fixedRatio: num(),
       overrunning: { type: DataTypes.BOOLEAN, allowNull: true },
       designation: { type: DataTypes.STRING(40), allowNull: true },
       balls: { type: DataTypes.INTEGER, allowNull: true },
-      ballMm: num,
-      pitchMm: num,
-      contactDeg: num,
-      ftf: num,
-      bpfo: num,
-      bpfi: num,
-      bsf: num,
+      ballMm: num(),
+      pitchMm: num(),
+      contactDeg: num(),
+      ftf: num(),
+      bpfo: num(),
+      bpfi: num(),
+      bsf: num(),
       rotatingRing: { type: DataTypes.ENUM('inner', 'outer'), allowNull: true },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,

@@ -1,6 +1,10 @@
 // Initialises every model on one Sequelize instance and wires the associations.
 // The one barrel file allowed (STYLE.md §2): later issues add their init and associations here.
 import type { Sequelize } from 'sequelize';
+import { BearingType, initBearingType } from './bearing-type';
+import { Belt, initBelt } from './belt';
+import { DriveComponent, initDriveComponent } from './drive-component';
+import { Engine, initEngine } from './engine';
 import { Invite, initInvite } from './invite';
 import { MailMessage, initMailMessage } from './mail-message';
 import { PasswordReset, initPasswordReset } from './password-reset';
@@ -8,7 +12,7 @@ import { Session, initSession } from './session';
 import { Shop, initShop } from './shop';
 import { User, initUser } from './user';
 
-export { Invite, MailMessage, PasswordReset, Session, Shop, User };
+export { BearingType, Belt, DriveComponent, Engine, Invite, MailMessage, PasswordReset, Session, Shop, User };
 
 /** Initialises the models on `sequelize` and defines their associations. Idempotent per instance. */
 export function initModels(sequelize: Sequelize): void {
@@ -18,6 +22,10 @@ export function initModels(sequelize: Sequelize): void {
   initInvite(sequelize);
   initPasswordReset(sequelize);
   initMailMessage(sequelize);
+  initBearingType(sequelize);
+  initEngine(sequelize);
+  initBelt(sequelize);
+  initDriveComponent(sequelize);
 
   Shop.hasMany(User, { foreignKey: 'shopId', as: 'users' });
   User.belongsTo(Shop, { foreignKey: 'shopId', as: 'shop' });
@@ -26,4 +34,13 @@ export function initModels(sequelize: Sequelize): void {
   Invite.belongsTo(User, { foreignKey: 'invitedById', as: 'invitedBy' });
   PasswordReset.belongsTo(User, { foreignKey: 'userId', as: 'user' });
   MailMessage.belongsTo(Shop, { foreignKey: 'shopId', as: 'shop' });
+  // Drive library: an engine's belts and components (written as a whole by services/engine-drive.ts).
+  Shop.hasMany(BearingType, { foreignKey: 'shopId' });
+  Shop.hasMany(Engine, { foreignKey: 'shopId' });
+  Shop.hasMany(Belt, { foreignKey: 'shopId' });
+  Shop.hasMany(DriveComponent, { foreignKey: 'shopId' });
+  Engine.hasMany(Belt, { foreignKey: 'engineId', as: 'belts' });
+  Engine.hasMany(DriveComponent, { foreignKey: 'engineId', as: 'components' });
+  Belt.belongsTo(DriveComponent, { foreignKey: 'driverComponentId', as: 'driverComponent', constraints: false });
+  DriveComponent.belongsTo(Belt, { foreignKey: 'beltId', as: 'belt', constraints: false });
 }

@@ -1,7 +1,7 @@
 // Shop-owned records a route row can name by id (`ownedParam`): how to find one within a shop.
 // Later issues add their resources here (engine, case, capture…), plus a factory in tests/helpers/factories.ts.
 import type { Model } from 'sequelize';
-import { Invite, MailMessage, User } from '../models';
+import { BearingType, Engine, Invite, MailMessage, User } from '../models';
 
 type Finder = (shopId: number, id: number) => Promise<Model | null>;
 
@@ -10,6 +10,8 @@ export const ownedResources = {
   user: (shopId, id) => User.findOne({ where: { id, shopId } }),
   invite: (shopId, id) => Invite.findOne({ where: { id, shopId } }),
   mail: (shopId, id) => MailMessage.findOne({ where: { id, shopId } }),
+  engine: (shopId, id) => Engine.findOne({ where: { id, shopId } }),
+  bearing: (shopId, id) => BearingType.findOne({ where: { id, shopId } }),
 } satisfies Record<string, Finder>;
 
 /** A resource name usable in a route row. */

@@ -3,6 +3,8 @@
 // tests/server/routes/route-table.test.ts walks every row for every role and a signed-out visitor.
 // To add routes: write a file exporting `xRoutes: RouteRow[]` and concatenate it here.
 import { authRoutes } from './auth';
+import { bearingRoutes } from './bearings';
+import { engineRoutes } from './engines';
 import { healthRoutes } from './health';
 import { inviteRoutes } from './invites';
 import { outboxRoutes } from './outbox';
@@ -18,4 +20,6 @@ export const routeTable: readonly RouteRow[] = [
   ...userRoutes,
   ...inviteRoutes,
   ...outboxRoutes,
+  ...engineRoutes,
+  ...bearingRoutes,
 ];

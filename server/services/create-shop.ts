@@ -2,6 +2,7 @@ import type { Sequelize, Transaction } from 'sequelize';
 import { hashPassword } from '../auth/passwords';
 import { AppError } from '../errors';
 import { Shop, User } from '../models';
+import { seedPublishedBearings } from './bearings';
 import type { Role } from '../../shared/auth/roles';
 
 /** A user to create with a new shop. */
@@ -36,6 +37,7 @@ export async function createShop(
     const taken = await User.findOne({ where: { email: emails }, transaction });
     if (taken) throw new AppError(409, 'email_in_use', `${taken.email} already has a Crankwise account`);
     const shop = await Shop.create({ name: input.name.trim(), isDemo: input.isDemo ?? false }, { transaction });
+    await seedPublishedBearings(shop.id, transaction); // Drive library: REFERENCES.md §1 published rows
     const users: User[] = [];
     for (const [i, u] of input.users.entries()) {
       const user = await User.create(

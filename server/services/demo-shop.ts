@@ -2,6 +2,7 @@ import type { Sequelize } from 'sequelize';
 import { Shop } from '../models';
 import type { Role } from '../../shared/auth/roles';
 import { createShop } from './create-shop';
+import { seedDemoEngines } from '../db/seeders/drive-library';
 
 /** The invented demo shop's name (no real shop, person or brand). */
 export const DEMO_SHOP_NAME = 'Larkspur Lane Auto Care';
@@ -20,7 +21,8 @@ export const DEMO_USERS: ReadonlyArray<{ name: string; email: string; password: 
  */
 export async function seedDemoShop(sequelize: Sequelize, bcryptRounds: number): Promise<boolean> {
   if ((await Shop.count({ where: { isDemo: true } })) > 0) return false;
-  await createShop(sequelize, { name: DEMO_SHOP_NAME, isDemo: true, users: [...DEMO_USERS] }, bcryptRounds);
+  const { shop } = await createShop(sequelize, { name: DEMO_SHOP_NAME, isDemo: true, users: [...DEMO_USERS] }, bcryptRounds);
+  await seedDemoEngines(shop.id); // Drive library: the three invented demo engines
   return true;
 }
 

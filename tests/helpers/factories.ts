@@ -5,6 +5,9 @@ import { hashPassword } from '../../server/auth/passwords';
 import { hashToken } from '../../server/auth/tokens';
 import { Invite, MailMessage, Shop, User } from '../../server/models';
 import type { OwnedResource } from '../../server/routes/owned-resources';
+import { BearingType } from '../../server/models';
+import { createEngine } from '../../server/services/engines';
+import { DEMO_I4 } from '../../server/db/seeders/demo-engines';
 
 /** A unique suffix for names and e-mails. */
 export const uniq = () => randomBytes(4).toString('hex');
@@ -80,4 +83,7 @@ export const ownedFactories: Record<OwnedResource, (shop: Shop) => Promise<numbe
   user: async (shop) => (await createUser(shop, 'tech')).user.id,
   invite: async (shop) => (await createInviteRow(shop)).invite.id,
   mail: async (shop) => (await createMailRow(shop)).id,
+  engine: async (shop) => (await createEngine(shop.id, { ...DEMO_I4, name: `Engine ${uniq()}` })).engine.id,
+  bearing: async (shop) =>
+    (await BearingType.create({ shopId: shop.id, designation: `T${uniq()}`, designationKey: `T${uniq()}`.toUpperCase(), balls: 8, ballMm: 6, pitchMm: 30, contactDeg: 0, source: 'measured', notes: '' })).id,
 };

@@ -1,7 +1,7 @@
 import { DataTypes } from 'sequelize';
 import type { MigrationModule } from '../migrator';
 
-const num = { type: DataTypes.DOUBLE, allowNull: true };
+const num = () => ({ type: DataTypes.DOUBLE, allowNull: true });
 
 /**
  * drive_components: the parts of an engine's drive, unique lower-cased name per engine; and the
@@ -22,19 +22,19 @@ export const migration: MigrationModule = {
         allowNull: false,
       },
       beltId: { type: DataTypes.INTEGER, allowNull: true, references: { model: 'belts', key: 'id' }, onDelete: 'SET NULL' },
-      pulleyMm: num,
+      pulleyMm: num(),
       backside: { type: DataTypes.BOOLEAN, allowNull: true },
-      fixedRatio: num,
+      fixedRatio: num(),
       overrunning: { type: DataTypes.BOOLEAN, allowNull: true },
       designation: { type: DataTypes.STRING(40), allowNull: true },
       balls: { type: DataTypes.INTEGER, allowNull: true },
-      ballMm: num,
-      pitchMm: num,
-      contactDeg: num,
-      ftf: num,
-      bpfo: num,
-      bpfi: num,
-      bsf: num,
+      ballMm: num(),
+      pitchMm: num(),
+      contactDeg: num(),
+      ftf: num(),
+      bpfo: num(),
+      bpfi: num(),
+      bsf: num(),
       rotatingRing: { type: DataTypes.ENUM('inner', 'outer'), allowNull: true },
       createdAt: { type: DataTypes.DATE, allowNull: false },
       updatedAt: { type: DataTypes.DATE, allowNull: false },
@@ -47,6 +47,7 @@ export const migration: MigrationModule = {
       name: 'belts_driver_component_fk',
       references: { table: 'drive_components', field: 'id' },
       onDelete: 'SET NULL',
+      onUpdate: 'CASCADE',
     });
   },
   async down({ context: q }) {

@@ -7,6 +7,10 @@ import { migration as createSessions } from './202612020302-create-sessions';
 import { migration as createInvites } from './202612020303-create-invites';
 import { migration as createPasswordResets } from './202612020304-create-password-resets';
 import { migration as createMailMessages } from './202612020305-create-mail-messages';
+import { migration as createBearingTypes } from './202612020400-create-bearing-types';
+import { migration as createEngines } from './202612020401-create-engines';
+import { migration as createBelts } from './202612020402-create-belts';
+import { migration as createDriveComponents } from './202612020403-create-drive-components';
 
 /** The ordered list umzug runs. */
 export const migrations: MigrationModule[] = [
@@ -16,4 +20,8 @@ export const migrations: MigrationModule[] = [
   createInvites,
   createPasswordResets,
   createMailMessages,
+  createBearingTypes,
+  createEngines,
+  createBelts,
+  createDriveComponents,
 ];
