@@ -223,7 +223,8 @@ export async function startDatabase(options: StartDatabaseOptions): Promise<Runn
     ];
     log(`starting MariaDB on 127.0.0.1:${options.port} (data in ${dataDir})`);
     const out = openSync(join(dataDir, 'mariadbd.out'), 'a');
-    child = spawn(server, args, { stdio: ['ignore', out, out] });
+    // Its own process group: a terminal's Ctrl-C reaches only us, and we stop it in order (SIGTERM, clean InnoDB shutdown).
+    child = spawn(server, args, { stdio: ['ignore', out, out], detached: true });
     closeSync(out);
     await waitUntilAnswering(socketPath, child, dataDir);
   }
@@ -257,8 +258,7 @@ async function main(): Promise<void> {
   if (!db.started) return;
   console.log('[db] Ctrl-C stops it');
   const shutdown = () => void db.stop().then(() => process.exit(0));
-  process.once('SIGINT', shutdown);
-  process.once('SIGTERM', shutdown);
+  for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) process.once(signal, shutdown);
 }
 
 // Run main() only when this file itself is the entry point (`npm run db`), not when bundled into start.js.

@@ -24,8 +24,7 @@ async function main(): Promise<void> {
     await db?.stop();
     process.exit(code);
   };
-  process.once('SIGINT', () => void stop(0));
-  process.once('SIGTERM', () => void stop(0));
+  for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) process.once(signal, () => void stop(0));
 
   try {
     let url = env.DATABASE_URL;
