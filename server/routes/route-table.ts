@@ -10,12 +10,14 @@ import { inviteRoutes } from './invites';
 import { outboxRoutes } from './outbox';
 import type { RouteRow } from './route-row';
 import { setupRoutes } from './setup';
+import { shopRoutes } from './shop';
 import { userRoutes } from './users';
 
 /** Every API route (paths relative to /api). */
 export const routeTable: readonly RouteRow[] = [
   ...healthRoutes,
   ...setupRoutes,
+  ...shopRoutes,
   ...authRoutes,
   ...userRoutes,
   ...inviteRoutes,

@@ -76,3 +76,17 @@ describe('API errors', () => {
     expect(res.body.error.code).toBe('bad_request');
   });
 });
+
+describe('the shop', () => {
+  it('shows every role its own shop and lets only the admin rename it, naming a bad name', async () => {
+    const tech = await t.signIn(shop.users.tech.email, shop.users.tech.password);
+    expect((await tech.get('/api/shop')).body.shop).toEqual({ id: shop.shop.id, name: shop.shop.name, isDemo: false });
+    const bad = await admin.patch('/api/shop', { name: ' ' });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.message).toMatch(/^name/);
+    const renamed = await admin.patch('/api/shop', { name: 'Renamed Garage' });
+    expect(renamed.status).toBe(200);
+    expect(renamed.body.shop.name).toBe('Renamed Garage');
+    expect((await tech.get('/api/auth/me')).body.user.shop.name).toBe('Renamed Garage');
+  });
+});
