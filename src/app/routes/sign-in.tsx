@@ -1,4 +1,5 @@
-import type { QueryClient } from '@tanstack/react-query';
+import { useQueryClient, type QueryClient } from '@tanstack/react-query';
+import { useEffect } from 'react';
 import { Link, redirect, useLoaderData, useNavigate, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { Card, CardContent, CardDescription, CardHeader, CardTitle } from '../../components/ui/card';
 import { meQueryOptions } from '../../features/auth/api/auth-queries';
@@ -27,7 +28,11 @@ export function SignInRoute() {
   const { needsSetup } = useLoaderData() as SignInData;
   const [params] = useSearchParams();
   const navigate = useNavigate();
+  const queryClient = useQueryClient();
   const signedOut = params.get('signedOut') === '1';
+  // Nobody is signed in here: whatever a previous session cached goes (the signed-in layout has
+  // unmounted by now, so nothing refetches it).
+  useEffect(() => queryClient.clear(), [queryClient]);
   return (
     <div className="grid gap-4">
       {signedOut ? (

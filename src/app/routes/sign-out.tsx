@@ -5,9 +5,10 @@ import { Card, CardContent, CardDescription, CardHeader, CardTitle } from '../..
 import { signOut } from '../../features/auth/api/sign-out';
 import { paths } from '../paths';
 
-/** POST /sign-out (the layout's button): ends the session, forgets cached data, goes to sign-in. */
+/** POST /sign-out (the layout's button): stops running queries, ends the session, goes to sign-in. */
 export const signOutAction = (queryClient: QueryClient) => async () => {
-  await signOut(queryClient);
+  await queryClient.cancelQueries();
+  await signOut();
   return redirect(`${paths.signIn}?signedOut=1`);
 };
 

@@ -1,11 +1,11 @@
-import type { QueryClient } from '@tanstack/react-query';
 import { ApiError, api, resetCsrfToken } from '../../../lib/api-client';
 
 /**
- * Ends the session (POST /api/auth/sign-out) and forgets everything cached for this user.
- * A session that was already gone (401) counts as signed out; other failures are rethrown.
+ * Ends the session (POST /api/auth/sign-out); a session that was already gone (401) counts as
+ * signed out. The cached data of this user is dropped by the sign-in page once the signed-in
+ * layout has unmounted: clearing it earlier would make the still-mounted pages refetch and fail.
  */
-export async function signOut(queryClient: QueryClient): Promise<void> {
+export async function signOut(): Promise<void> {
   try {
     await api.post<void>('/api/auth/sign-out');
   } catch (error) {
@@ -13,5 +13,4 @@ export async function signOut(queryClient: QueryClient): Promise<void> {
   } finally {
     resetCsrfToken();
   }
-  queryClient.clear();
 }
