@@ -13,8 +13,8 @@ const toastVariants = cva(
     variants: {
       variant: {
         default: 'border-border',
-        success: 'border-l-4 border-l-success border-border',
-        error: 'border-l-4 border-l-destructive border-border',
+        success: 'border-border border-l-4 border-l-success',
+        error: 'border-border border-l-4 border-l-destructive',
       },
     },
     defaultVariants: { variant: 'default' },
