@@ -37,7 +37,9 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
   let fake: MailFake | null = null;
   let mailUrl = env.MAIL_URL;
   if (!mailUrl) {
-    fake = await startMailFake(env.MAIL_FAKE_PORT, logger.child({ component: 'mail-fake' }));
+    fake = await startMailFake(env.MAIL_FAKE_PORT, logger.child({ component: 'mail-fake' })).catch((error: unknown) => {
+      throw portError(error, env.MAIL_FAKE_PORT, 'MAIL_FAKE_PORT');
+    });
     mailUrl = fake.url;
     logger.info('mail fake listening (messages go to the Outbox)', { url: fake.url });
   }
@@ -52,7 +54,7 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
   });
   const server: Server = await new Promise((resolve, reject) => {
     const s = app.listen(env.PORT, env.HOST, () => resolve(s));
-    s.once('error', reject);
+    s.once('error', (error) => reject(portError(error, env.PORT, 'PORT')));
   });
   const { port } = server.address() as AddressInfo;
   const url = `http://${env.HOST}:${port}`;
@@ -70,4 +72,12 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
       await sequelize.close();
     },
   };
+}
+
+/** Turns "address in use" into a message that says what to do. */
+function portError(error: unknown, port: number, variable: string): Error {
+  if ((error as NodeJS.ErrnoException)?.code === 'EADDRINUSE') {
+    return new Error(`Port ${port} is already in use (another Crankwise?): stop that program or set ${variable} to a free port`);
+  }
+  return error instanceof Error ? error : new Error(String(error));
 }
