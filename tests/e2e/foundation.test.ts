@@ -14,6 +14,8 @@ const PORT = Number(process.env.E2E_PORT ?? 3200);
 const SCREENSHOTS = path.resolve('tests/e2e/screenshots');
 
 let browser: Browser;
+/** The user the invite test creates; the reset test uses it so the demo users keep their README passwords for other test files. */
+let invited: { email: string; password: string } | undefined;
 let server: { baseUrl: string; stop: () => Promise<void> };
 
 beforeAll(async () => {
@@ -150,6 +152,7 @@ describe('Foundation in the browser', () => {
     await invitee.getByText(email).waitFor();
     await invitee.getByLabel('Your name').fill('Wren Halloway');
     await invitee.getByLabel('Choose a password').fill('a sturdy e2e password');
+    invited = { email, password: 'a sturdy e2e password' };
     await shot(invitee, 'invite-accept');
     await invitee.getByRole('button', { name: /^Join / }).click();
     await invitee.getByRole('heading', { name: 'Cases' }).waitFor();
@@ -158,5 +161,89 @@ describe('Foundation in the browser', () => {
     await invitee.context().close();
     expect(problemsOf(page)).toEqual([]);
     await page.context().close();
+  });
+
+  it('resets a forgotten password through the e-mailed link, once', async () => {
+    if (!invited) throw new Error('needs the user created by the invite test above, which did not finish');
+    const member = { ...invited, role: 'specialist' as const };
+    const admin = DEMO_USERS.find((u) => u.role === 'admin')!;
+    const visitor = await newPage();
+    await visitor.goto(`${server.baseUrl}/sign-in`);
+    await visitor.getByRole('link', { name: 'Forgot your password?' }).click();
+    await visitor.getByLabel('E-mail').fill(member.email);
+    await visitor.getByRole('button', { name: 'Send reset link' }).click();
+    await visitor.getByText('Check your e-mail').waitFor();
+
+    // The admin reads the mail fake's copy in the Outbox (no MAIL_URL in tests).
+    const page = await newPage();
+    await signIn(page, admin.email, admin.password);
+    await page.goto(`${server.baseUrl}/outbox`);
+    await page.getByRole('list', { name: 'Messages' }).getByRole('link').filter({ hasText: member.email }).first().click();
+    const resetLink = page.getByRole('article').getByRole('link', { name: /\/reset-password\// });
+    await resetLink.waitFor();
+    const href = (await resetLink.getAttribute('href'))!.replace(/^https?:\/\/[^/]+/, server.baseUrl);
+    await page.context().close();
+
+    const newPassword = 'a brand new password';
+    await visitor.goto(href);
+    await visitor.getByLabel('New password', { exact: true }).fill(newPassword);
+    await visitor.getByLabel('New password again').fill(newPassword);
+    await visitor.getByRole('button', { name: 'Set new password' }).click();
+    await visitor.getByText('Your password is set.').waitFor();
+    await shot(visitor, 'reset-password-done');
+
+    // The link works only once.
+    await visitor.goto(href);
+    await visitor.getByLabel('New password', { exact: true }).fill('yet another password');
+    await visitor.getByLabel('New password again').fill('yet another password');
+    await visitor.getByRole('button', { name: 'Set new password' }).click();
+    await visitor.getByText('This link no longer works').waitFor();
+
+    await signIn(visitor, member.email, newPassword);
+    expect(await navLabels(visitor)).toEqual(navSectionsFor(member.role).map((s) => NAV_LABELS[s]));
+    expect(problemsOf(visitor).filter((p) => !/Failed to load resource.*\b400\b/.test(p))).toEqual([]);
+    await visitor.context().close();
+  });
+
+  it('looks right on a phone: navigation on top, the page below', async () => {
+    const tech = DEMO_USERS.find((u) => u.role === 'tech')!;
+    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const page = await context.newPage();
+    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').fill(tech.email);
+    await page.getByLabel('Password').fill(tech.password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('heading', { name: 'Cases' }).waitFor();
+    // Nothing is wider than the screen: no sideways scrolling of the whole page.
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    await shot(page, 'phone-cases');
+    await context.close();
+  });
+
+  // Last: it creates a real shop, after which the set-up page is no longer offered.
+  it('sets up a first real shop whose admin sees none of the demo shop', async () => {
+    const page = await newPage();
+    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.getByRole('link', { name: 'Set up your shop' }).click();
+    await page.getByLabel('Shop name').fill('Quillfeather Motor Works');
+    await page.getByLabel('Admin name').fill('Maren Tolliver');
+    await page.getByLabel('Admin e-mail').fill('maren@quillfeather.test');
+    await page.getByLabel('Admin password').fill('first real admin password');
+    await shot(page, 'setup');
+    await page.getByRole('button', { name: 'Create shop and sign in' }).click();
+    await page.getByRole('heading', { name: 'Team' }).waitFor();
+    const emails = await page.getByRole('table').first().getByRole('row').allInnerTexts();
+    expect(emails.filter((row) => row.includes('@'))).toHaveLength(1);
+    expect(emails.join('\n')).toContain('maren@quillfeather.test');
+    expect(emails.join('\n')).not.toContain('demo.crankwise.test');
+    await expect(page.getByText('Demo shop').count()).resolves.toBe(0);
+    await shot(page, 'setup-team');
+    expect(problemsOf(page)).toEqual([]);
+    await page.context().close();
+
+    const later = await newPage();
+    await later.goto(`${server.baseUrl}/setup`);
+    await later.getByText('This installation is set up').waitFor();
+    await later.context().close();
   });
 });
