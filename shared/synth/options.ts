@@ -5,10 +5,9 @@
  */
 import { z } from 'zod';
 import type { DriveDocument } from '../drive/types';
+// The generator draws exactly the pipeline's reference kinds.
+import { RefKindSchema } from '../schemas/analysis-settings';
 
-/** The reference kinds the generator can draw (the pipeline's kinds; see DESIGN.md step 2). */
-export const RefKindSchema = z.enum(['cyl1', 'per-rev', 'per-cylinder', 'wheel']);
-export type RefKind = z.infer<typeof RefKindSchema>;
 
 /** The six fault kinds of the ranking (DESIGN.md "Ranking suspects"). */
 export const FaultKindSchema = z.enum(['shaft', 'outer_race', 'inner_race', 'ball', 'cage', 'belt']);

@@ -3,7 +3,8 @@
  * Orders are multiples of crank speed; angles are crank degrees in the 720° cycle from cylinder-1
  * TDC; percentages are of the nominal value.
  */
-import type { FaultKind, RefKind } from './options';
+import type { FaultKind } from './options';
+import type { RefKind } from '../schemas/analysis-settings';
 
 /** Settings that analyse the capture (mirrors the pipeline's settings fields by meaning). */
 export interface TruthAnalysisSettings {
