@@ -1,11 +1,17 @@
 import { type FftPlanCache, nextPowerOfTwo } from '../dsp/fft';
 import { spectralKurtosis } from '../dsp/spectral-kurtosis';
+import { type StftOptions, visitStftPower } from '../dsp/stft';
 
 /**
  * Automatic envelope band (DESIGN.md step 5): spectral kurtosis (Antoni 2006) of the residual
  * after the 720° average was subtracted, estimated with two STFT frame lengths (about 3 ms and
  * 12 ms, like two levels of a kurtogram; Antoni 2007), scored per candidate band as the mean SK of
- * its bins, best of the two. The residual is in the angle domain; its bins map to Hz with the mean
+ * its bins, best of the two. Ticks that ring a little differently every cycle survive the
+ * subtraction of the average, so each frame's power is first divided by the mean power of the
+ * frames at the same angle of the cycle in that bin (frames are aligned with the 720° cycle): what
+ * recurs at a fixed angle then stops looking impulsive, impacts at wandering angles still do; a
+ * bin scores the smaller of its plain and its normalised kurtosis.
+ * The residual is in the angle domain; its bins map to Hz with the mean
  * speed (a structural resonance is fixed in Hz). Bands of 1×, 2× and 4× the minimum width slide in
  * quarter-width steps; the best two or three that overlap each other by less than half are kept.
  */
@@ -24,10 +30,12 @@ export interface BandSearch {
   count: number;
   /** At most this many STFT frames per frame length (strided over the whole capture). */
   maxFrames?: number;
+  /** Samples per 720° cycle of the residual: enables the cycle normalisation (see module comment). */
+  cyclePeriod?: number;
 }
 
-/** The best bands, best first (at least one). */
-export function chooseEnvelopeBands(residual: Float64Array, search: BandSearch, plans: FftPlanCache): BandCandidate[] {
+/** Candidate bands by spectral kurtosis, best first (at least one). */
+export function kurtosisBands(residual: Float64Array, search: BandSearch, plans: FftPlanCache): BandCandidate[] {
   const { rateHz, loHz, hiHz } = search;
   const maxFrames = search.maxFrames ?? 6000;
   const levels = [0.003, 0.012].map((sec) => {
@@ -35,7 +43,10 @@ export function chooseEnvelopeBands(residual: Float64Array, search: BandSearch, 
     const hop = size / 2;
     const frames = Math.max(1, Math.floor((residual.length - size) / hop) + 1);
     const stride = Math.max(1, Math.ceil(frames / maxFrames));
-    const { sk } = spectralKurtosis(residual, { frameSize: size, hop, stride, window: 'hann' }, plans);
+    const opts = { frameSize: size, hop, stride, window: 'hann' as const };
+    const sk = search.cyclePeriod && search.cyclePeriod % hop === 0 && residual.length >= 4 * search.cyclePeriod
+      ? cycleNormalisedKurtosis(residual, opts, search.cyclePeriod / hop, plans)
+      : spectralKurtosis(residual, opts, plans).sk;
     // Cumulative sums for O(1) band means.
     const cum = new Float64Array(sk.length + 1);
     for (let k = 0; k < sk.length; k++) cum[k + 1] = cum[k] + sk[k];
@@ -64,10 +75,15 @@ export function chooseEnvelopeBands(residual: Float64Array, search: BandSearch, 
   }
   if (cands.length === 0) return [{ bandHz: [loHz, hiHz], score: 0 }];
   cands.sort((a, b) => b.score - a.score);
+  return pickDistinct(cands, search.count);
+}
+
+/** The first `count` candidates (in the given order) that overlap each chosen one by less than half. */
+export function pickDistinct(cands: BandCandidate[], count: number): BandCandidate[] {
   const chosen: BandCandidate[] = [];
   for (const c of cands) {
     if (chosen.every((k) => overlapFraction(k.bandHz, c.bandHz) < 0.5)) chosen.push(c);
-    if (chosen.length >= search.count) break;
+    if (chosen.length >= count) break;
   }
   return chosen;
 }
@@ -75,4 +91,39 @@ export function chooseEnvelopeBands(residual: Float64Array, search: BandSearch, 
 function overlapFraction(a: [number, number], b: [number, number]): number {
   const o = Math.max(0, Math.min(a[1], b[1]) - Math.max(a[0], b[0]));
   return o / Math.min(a[1] - a[0], b[1] - b[0]);
+}
+
+/**
+ * The smaller of the plain spectral kurtosis and that of the power normalised per (position in
+ * the cycle, bin): impulsive in both senses, so neither cycle-locked ticks nor the noisy
+ * normalisation of a quiet band win. Two STFT passes, the first also for the mean power at each
+ * of `positions` frame positions per cycle.
+ */
+function cycleNormalisedKurtosis(x: Float64Array, options: StftOptions, positions: number, plans: FftPlanCache): Float64Array {
+  const bins = options.frameSize / 2 + 1;
+  const mean = new Float64Array(positions * bins);
+  const count = new Float64Array(positions);
+  const r2 = new Float64Array(bins);
+  const r4 = new Float64Array(bins);
+  visitStftPower(x, options, plans, (f, p) => {
+    const o = (f % positions) * bins;
+    count[f % positions]++;
+    for (let k = 0; k < bins; k++) { const v = p[k]; mean[o + k] += v; r2[k] += v; r4[k] += v * v; }
+  });
+  for (let q = 0; q < positions; q++) for (let k = 0; k < bins; k++) mean[q * bins + k] = mean[q * bins + k] / Math.max(1, count[q]) + 1e-300;
+  const s2 = new Float64Array(bins);
+  const s4 = new Float64Array(bins);
+  const frames = visitStftPower(x, options, plans, (f, p) => {
+    const o = (f % positions) * bins;
+    for (let k = 0; k < bins; k++) { const v = p[k] / mean[o + k]; s2[k] += v; s4[k] += v * v; }
+  });
+  const sk = new Float64Array(bins);
+  for (let k = 0; k < bins; k++) {
+    const m2 = s2[k] / frames;
+    const normalised = m2 > 0 ? s4[k] / frames / (m2 * m2) - 2 : 0;
+    const q2 = r2[k] / frames;
+    const raw = q2 > 0 ? r4[k] / frames / (q2 * q2) - 2 : 0;
+    sk[k] = Math.min(raw, normalised);
+  }
+  return sk;
 }

@@ -11,9 +11,10 @@ import { type OrderSpectrum } from './types';
  * M samples per block; |z| is the envelope times the window (the window varies slowly against the
  * band), its mean·window is removed (the spectrum of the envelope, mean removed — not the squared
  * envelope), a real FFT of size M, power averaged over blocks. Amplitudes are single-sided peak
- * amplitudes corrected for the Hann window's coherent gain, in input units.
+ * amplitudes corrected for the Hann window's coherent gain, in input units. `maxBlocks` limits the
+ * average to that many evenly spaced blocks (a quick look when comparing candidate bands).
  */
-export function envelopeSpectra(x: Float64Array, samplesPerRev: number, revsPerBlock: number, bandsOrders: [number, number][], maxOrder: number, plans: FftPlanCache): OrderSpectrum[] {
+export function envelopeSpectra(x: Float64Array, samplesPerRev: number, revsPerBlock: number, bandsOrders: [number, number][], maxOrder: number, plans: FftPlanCache, maxBlocks = Infinity): OrderSpectrum[] {
   const n = samplesPerRev * revsPerBlock;
   if (x.length < n) throw new RangeError(`envelope spectrum needs at least ${n} samples (one block), got ${x.length}`);
   const plan = plans.get(n);
@@ -21,7 +22,10 @@ export function envelopeSpectra(x: Float64Array, samplesPerRev: number, revsPerB
   let wSum = 0;
   for (let i = 0; i < n; i++) wSum += w[i];
   const hop = n / 2;
-  const blocks = Math.floor((x.length - n) / hop) + 1;
+  const allBlocks = Math.floor((x.length - n) / hop) + 1;
+  // With maxBlocks, evenly spaced blocks only (a quick look for choosing bands).
+  const blocks = Math.min(allBlocks, maxBlocks);
+  const blockStart = (b: number) => (blocks === allBlocks ? b : Math.round((b * (allBlocks - 1)) / Math.max(1, blocks - 1))) * hop;
   const frame = new Float64Array(n);
   const spec = plan.work;
   const bands = bandsOrders.map(([lo, hi]) => {
@@ -40,7 +44,7 @@ export function envelopeSpectra(x: Float64Array, samplesPerRev: number, revsPerB
     };
   });
   for (let b = 0; b < blocks; b++) {
-    const s = b * hop;
+    const s = blockStart(b);
     for (let i = 0; i < n; i++) frame[i] = x[s + i] * w[i];
     plan.fft.realTransform(spec, frame);
     for (const B of bands) {

@@ -8,7 +8,7 @@ import { AnalysisInputError } from './analysis-input-error';
 import { resampleAtAngles } from './angle-resample';
 import { crankAngle, crankSpeed } from './crank-speed';
 import { cycleView } from './cycle-view';
-import { chooseEnvelopeBands } from './envelope-band';
+import { chooseEnvelopeBands } from './envelope-choice';
 import { envelopeSpectra } from './envelope-spectrum';
 import { commonFiringOrder } from './firing-order';
 import { orderPeaks } from './order-peaks';
@@ -157,8 +157,12 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
     bands = [{ bandHz: [lo, hi], score: NaN }];
   } else {
     const minWidthHz = Math.max(500, 40 * meanShaftHz);
-    bands = chooseEnvelopeBands(residual, {
-      rateHz: hiSpr * meanShaftHz, loHz: ENVELOPE_LOW_HZ, hiHz: usableHz, minWidthHz, maxWidthHz: 4 * minWidthHz, count: 3,
+    bands = chooseEnvelopeBands({
+      residual, samplesPerRev: hiSpr, revsPerBlock: rpbE, meanShaftHz,
+      search: {
+        rateHz: hiSpr * meanShaftHz, loHz: ENVELOPE_LOW_HZ, hiHz: usableHz, minWidthHz, maxWidthHz: 4 * minWidthHz, count: 3,
+        cyclePeriod: residualOk ? 2 * hiSpr : undefined,
+      },
     }, plans);
   }
   const envSpecs = envelopeSpectra(residual, hiSpr, rpbE, bands.map((b) => [b.bandHz[0] / meanShaftHz, b.bandHz[1] / meanShaftHz]), maxOrder, plans);
@@ -168,7 +172,7 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
   t0 = clock();
   const cycle = cycleView({
     x: xHi, samplesPerRev: hiSpr, tdcOffsetDeg: settings.tdcOffsetDeg, firingOrder,
-    phaseResolved: reference.phaseResolved, ambiguityDeg: reference.ambiguityDeg,
+    phaseResolved: reference.phaseResolved, ambiguityDeg: reference.ambiguityDeg, plans,
   });
   t.cycle = clock() - t0;
 
