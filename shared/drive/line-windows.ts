@@ -69,19 +69,21 @@ export function relativeWindow(role: LineRole, regime: DriveRegime, outerRingTur
 
 /**
  * The range of relative deviations from nominal that the kinematics make likely for a line (the
- * core of its window, where a reading is fully plausible): belt creep per stage 0–3 % (none for
+ * core of its window, where a reading is fully plausible): belt creep 0–3 % in all (none for
  * fixed ratios, up to 10 % for loose parts, or the known slip), and for bearing lines the cage lag
  * of 0.5–2 %, which lowers the fixed race, cage and ball lines by the lag and raises the turning
  * race by the lag × `turningShare` (the other race's factor over this one's: BPFO/BPFI for an inner
  * ring, BPFI/BPFO for an outer ring; REFERENCES.md §1, §4). Default share 0.6 (inner), 1.6 (outer).
  */
 export function likelyDeviation(role: LineRole, regime: DriveRegime, outerRingTurns = false, knownSlip?: number, beltStages = 1, turningShare?: number): [number, number] {
-  const stages = Math.max(1, beltStages);
+  // The window allows creep on every belt stage, but a large total is unusual: the likely core
+  // keeps to one worn belt's worth (0–3 % in all), so of two explanations the one needing less
+  // compounded creep wins.
   const creep: [number, number] = knownSlip !== undefined ? [knownSlip, knownSlip]
     : regime === 'fixed' ? [0, 0]
       : regime === 'loose' ? [0, -SHAFT.loose.below]
-        : [CREEP_RANGE[0], CREEP_RANGE[1] * stages];
-  if (role === 'belt') return [-CREEP_RANGE[1] * Math.max(0, beltStages - 1), 0];
+        : CREEP_RANGE;
+  if (role === 'belt') return [beltStages > 1 ? -CREEP_RANGE[1] : 0, 0];
   if (role === 'shaft') return [-creep[1], -creep[0]];
   const [lagLo, lagHi] = CAGE_LAG_RANGE;
   if (role === 'fixed') return [(1 - creep[1]) * (1 - lagHi) - 1, (1 - creep[0]) * (1 - lagLo) - 1];

@@ -84,37 +84,45 @@ function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spe
   const offCombFound = carriers.filter((c) => c.found.snrDb >= FOUND_DB && !isComb(c.found.order)).length;
   const cw = combWeight(offCombFound);
   const lines: PatternLine[] = [];
-  let total = 0;
-  // The most a complete pattern could collect here: every carrier the spectrum holds, and the
-  // sidebands as far as their carrier's strength makes them expected (a sideband sits about
-  // 8–12 dB below its carrier, so beside a weak carrier its absence proves little).
-  let possible = 0;
-  for (const line of search.carriers) if (line.harmonic * f <= top) possible += HARMONIC_WEIGHT[line.harmonic - 1] ?? 0.4;
+  // Carriers: the weighted strengths found over those of every harmonic the spectrum holds.
+  let carrierTotal = 0;
+  let carrierPossible = 0;
+  for (const line of search.carriers) if (line.harmonic * f <= top) carrierPossible += HARMONIC_WEIGHT[line.harmonic - 1] ?? 0.4;
+  for (const c of carriers) {
+    const onComb = isComb(c.found.order);
+    const weight = (HARMONIC_WEIGHT[c.h - 1] ?? 0.4) * (onComb ? cw : 1);
+    carrierTotal += weight * lineStrength(c.found.snrDb);
+    lines.push({ line: c.line, found: c.found, onComb, cycleGain: gain(c.found.order), weight });
+  }
+  // Sidebands confirm (DESIGN.md): a sideband sits about 8–12 dB below its carrier, so it is
+  // judged 9 dB more leniently, and its absence counts only as far as the carrier's strength
+  // made it expected. A pattern whose kind has no sidebands neither gains nor loses by them.
+  let sbPossible = 0;
+  let sbExpected = 0;
   if (search.modulatorWindow) {
     for (const sb of search.sidebands) {
       const at = (sb.carrierHarmonic ?? 1) * f + sb.sideband * (search.modulatorWindow[0] + search.modulatorWindow[1]) / 2;
       if (!(at > 0 && at <= top)) continue;
       const carrier = carriers.find((c) => c.h === sb.carrierHarmonic);
-      const expectation = carrier ? Math.max(0.3, Math.min(1, (carrier.found.snrDb - 8) / 12)) : 0.3;
-      possible += expectation * SIDEBAND_WEIGHT;
+      sbPossible += 1;
+      sbExpected += carrier ? Math.max(0, Math.min(1, (carrier.found.snrDb - 8) / 12)) : 0;
     }
   }
-  for (const c of carriers) {
-    const onComb = isComb(c.found.order);
-    const weight = (HARMONIC_WEIGHT[c.h - 1] ?? 0.4) * (onComb ? cw : 1);
-    total += weight * lineStrength(c.found.snrDb);
-    lines.push({ line: c.line, found: c.found, onComb, cycleGain: gain(c.found.order), weight });
-  }
+  let sbTotal = 0;
   for (const s of sidebands) {
     // An engine line where a sideband should be confirms nothing.
     const onComb = isComb(s.found.order);
-    const weight = SIDEBAND_WEIGHT * (onComb ? 0.2 : 1);
-    total += weight * lineStrength(s.found.snrDb);
-    lines.push({ line: s.line, found: s.found, onComb, cycleGain: gain(s.found.order), weight });
+    const weight = onComb ? 0.2 : 1;
+    sbTotal += weight * lineStrength(s.found.snrDb + 9);
+    lines.push({ line: s.line, found: s.found, onComb, cycleGain: gain(s.found.order), weight: weight * SIDEBAND_WEIGHT });
   }
-  // Plausibility of the fundamental's deviation from nominal: full where the kinematics expect it
-  // (creep and cage lag), falling to 0.4 at the window's edges, so that a stray impulsive source
-  // or a near-equal ratio that needs an unlikely slip counts less.
+  const sbFound = sbPossible > 0 ? Math.min(1, sbTotal / sbPossible) : 0;
+  const expectation = sbPossible > 0 ? sbExpected / sbPossible : 0;
+  const sidebandFactor = sbPossible > 0 ? 0.85 + 0.15 * sbFound - 0.1 * expectation * (1 - sbFound) : 0.85;
+  // Plausibility of the fundamental's deviation from nominal: near 1 where the kinematics expect it
+  // (creep and cage lag; a touch higher at the middle of that range, which settles near-equal
+  // ratios by the less extreme slip), falling to 0.4 at the window's edges, so that a stray
+  // impulsive source or a near-equal ratio that needs an unlikely slip counts less.
   // Judge the fundamental the matched lines imply (least squares over harmonics), not the trial
   // value that found them, so a trial inside the window cannot vouch for lines outside it.
   const nominal = search.carriers.find((c) => c.harmonic === 1)?.nominalOrder ?? search.carriers[0].nominalOrder / search.carriers[0].harmonic;
@@ -124,11 +132,13 @@ function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spe
   const dev = fitted / nominal - 1;
   const { below, above, likely } = search.relative;
   const slack = 0.5 * res / nominal;
-  let outside = 0;
-  if (dev < likely[0] - slack) outside = (likely[0] - slack - dev) / Math.max(1e-6, likely[0] - slack - below);
-  else if (dev > likely[1] + slack) outside = (dev - likely[1] - slack) / Math.max(1e-6, above - likely[1] - slack);
-  const plausibility = 1 - 0.6 * Math.min(1, outside) ** 2;
-  const completeness = possible > 0 ? Math.min(1, total / possible) : 0;
+  const lo = likely[0] - slack;
+  const hi = likely[1] + slack;
+  let plausibility: number;
+  if (dev < lo) plausibility = 0.95 - 0.55 * Math.min(1, (lo - dev) / Math.max(1e-6, lo - below)) ** 2;
+  else if (dev > hi) plausibility = 0.95 - 0.55 * Math.min(1, (dev - hi) / Math.max(1e-6, above - hi)) ** 2;
+  else plausibility = 1 - 0.05 * ((dev - (likely[0] + likely[1]) / 2) / Math.max(1e-6, (hi - lo) / 2)) ** 2;
+  const completeness = carrierPossible > 0 ? Math.min(1, carrierTotal / carrierPossible) * sidebandFactor : 0;
   return {
     total: completeness * plausibility,
     fundamental: fitted,
