@@ -40,6 +40,7 @@ export interface CycleInput {
 }
 
 const MAX_FRAME_DEG = 6;
+const MAX_POWER_CYCLES = 128;
 /**
  * Event threshold on the peak-to-median power ratio: the log-mean of N exponential powers has a
  * spread of about 1.28/√N (π/√6), and the largest of some 10⁴ (angle, band) cells of pure noise
@@ -73,16 +74,24 @@ export function cycleView(input: CycleInput): CycleResult {
     const plan = input.plans.get(frame);
     const w = createWindow('hann', frame);
     const buf = new Float64Array(frame);
-    const usable = cycles * period - frame;
-    for (let s = 0, pos = 0; s <= usable; s += hop, pos = pos + 1 === positions ? 0 : pos + 1) {
-      for (let i = 0; i < frame; i++) buf[i] = (x[s + i] - (s + i > 0 ? x[s + i - 1] : x[s + i])) * w[i];
-      plan.fft.realTransform(plan.work, buf);
-      const o = pos * bins;
-      for (let k = 2; k < bins; k++) power[o + k] += Math.log(plan.work[2 * k] ** 2 + plan.work[2 * k + 1] ** 2 + 1e-300);
+    // At most MAX_POWER_CYCLES cycles, evenly spaced (enough statistics, bounded cost).
+    const used = Math.min(cycles, MAX_POWER_CYCLES);
+    const perPos = new Float64Array(positions);
+    for (let u = 0; u < used; u++) {
+      const c = used === cycles ? u : Math.round((u * (cycles - 1)) / Math.max(1, used - 1));
+      const base = c * period;
+      for (let pos = 0; pos < positions; pos++) {
+        const s = base + pos * hop;
+        if (s + frame > x.length) break;
+        for (let i = 0; i < frame; i++) buf[i] = (x[s + i] - (s + i > 0 ? x[s + i - 1] : x[s + i])) * w[i];
+        plan.fft.realTransform(plan.work, buf);
+        const o = pos * bins;
+        const wk = plan.work;
+        for (let k = 2; k < bins; k++) power[o + k] += Math.log(wk[2 * k] * wk[2 * k] + wk[2 * k + 1] * wk[2 * k + 1] + 1e-300);
+        perPos[pos]++;
+      }
     }
     // Geometric mean over cycles (a tick in every cycle counts; one big stray impact hardly does).
-    const perPos = new Float64Array(positions);
-    for (let s = 0, pos = 0; s <= usable; s += hop, pos = pos + 1 === positions ? 0 : pos + 1) perPos[pos]++;
     for (let p = 0; p < positions; p++) for (let k = 2; k < bins; k++) power[p * bins + k] = Math.exp(power[p * bins + k] / Math.max(1, perPos[p]));
     // Band with the largest peak-to-median ratio over the cycle.
     let bestK = 2, bestRatio = 0, bestPos = 0;
@@ -106,7 +115,7 @@ export function cycleView(input: CycleInput): CycleResult {
       rmsDeg[d] = Math.sqrt(((1 - f) * a + f * b) / Math.max(med, 1e-300));
     }
     const coherent = coherentEvent(average, perDeg);
-    const sB = bestRatio / eventThreshold(cycles);
+    const sB = bestRatio / eventThreshold(used);
     const sA = coherent.ratio / COHERENT_THRESHOLD;
     if (sA >= 1 && sA >= sB) {
       event = describeEvent(coherent.angleDeg, firingOrder, input.phaseResolved, input.ambiguityDeg);

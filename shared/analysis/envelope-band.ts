@@ -37,7 +37,7 @@ export interface BandSearch {
 /** Candidate bands by spectral kurtosis, best first (at least one). */
 export function kurtosisBands(residual: Float64Array, search: BandSearch, plans: FftPlanCache): BandCandidate[] {
   const { rateHz, loHz, hiHz } = search;
-  const maxFrames = search.maxFrames ?? 6000;
+  const maxFrames = search.maxFrames ?? 2000;
   const levels = [0.003, 0.012].map((sec) => {
     const size = Math.min(4096, Math.max(32, nextPowerOfTwo(rateHz * sec)));
     const hop = size / 2;

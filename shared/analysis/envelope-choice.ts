@@ -21,7 +21,7 @@ export interface EnvelopeChoiceInput {
   search: BandSearch;
 }
 
-const QUICK_BLOCKS = 6;
+const QUICK_BLOCKS = 4;
 const QUICK_MAX_ORDER = 50;
 
 /** Best envelope bands, best first. */

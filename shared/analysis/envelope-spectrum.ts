@@ -55,7 +55,8 @@ export function envelopeSpectra(x: Float64Array, samplesPerRev: number, revsPerB
       for (let k = B.k0, j = 0; k <= B.k1; k++, j++) { zIn[2 * j] = spec[2 * k] * g; zIn[2 * j + 1] = spec[2 * k + 1] * g; }
       B.plan.fft.inverseTransform(z, zIn);
       let eSum = 0;
-      for (let i = 0; i < m; i++) { const v = Math.hypot(z[2 * i], z[2 * i + 1]); e[i] = v; eSum += v; }
+      for (let i = 0; i < m; i++) { const re = z[2 * i], im = z[2 * i + 1];
+        const v = Math.sqrt(re * re + im * im); e[i] = v; eSum += v; }
       const mu = eSum / B.wDecSum;
       for (let i = 0; i < m; i++) e[i] -= mu * wDec[i];
       B.plan.fft.realTransform(B.z, e);

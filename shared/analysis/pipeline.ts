@@ -66,7 +66,8 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
   const scale = (ch: number) => settings.channelScales[ch - 1] ?? 1;
   const ref = toFloat32(input.channels[settings.refChannel - 1], scale(settings.refChannel));
   const cam = settings.camChannel ? toFloat32(input.channels[settings.camChannel - 1], 1) : null;
-  const pickup = toFloat64(input.channels[settings.pickupChannel - 1], scale(settings.pickupChannel));
+  const pickupRaw = input.channels[settings.pickupChannel - 1];
+  const pickupScale = scale(settings.pickupChannel);
   let firingOrder = settings.firingOrder;
   if (!firingOrder) {
     firingOrder = commonFiringOrder(settings.cylinders);
@@ -93,9 +94,12 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
   // 4. Order tracking: half-band decimation, anti-alias low-pass, resampling at constant angle.
   t0 = clock();
   const half = designHalfBand();
-  let xE: Float64Array = pickup;
+  // Decimate straight from the float32 channel (no full-rate float64 copy), scale afterwards.
+  let xE: Float64Array | null = null;
   let fsE = fs;
-  while (fsE / 2 >= 2.5 * settings.envelopeMaxHz) { xE = decimateByTwo(xE, half); fsE /= 2; }
+  while (fsE / 2 >= 2.5 * settings.envelopeMaxHz) { xE = decimateByTwo(xE ?? pickupRaw, half); fsE /= 2; }
+  if (!xE) xE = toFloat64(pickupRaw, pickupScale);
+  else if (pickupScale !== 1) for (let i = 0; i < xE.length; i++) xE[i] *= pickupScale;
   const usableHz = (fsE < fs ? 0.4 : 0.45) * fsE;
   const maxOrder = settings.maxOrder;
   let spr = settings.samplesPerRev;

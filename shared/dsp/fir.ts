@@ -70,29 +70,33 @@ export function decimateByTwo(x: ArrayLike<number>, h: Float64Array = designHalf
   const y = out ?? new Float64Array(m);
   const c = (h.length - 1) / 2;
   const centre = h[c];
-  const taps: number[] = [];
-  const offs: number[] = [];
-  for (let j = 1; j <= c; j += 2) { taps.push(h[c + j]); offs.push(j); }
-  const nt = taps.length;
-  const tapArr = Float64Array.from(taps);
-  const offArr = Int32Array.from(offs);
-  const edge = c;
-  for (let k = 0; k < m; k++) {
+  // Non-zero side taps sit at odd offsets 1, 3, 5, … from the centre: tap t at offset 2t + 1.
+  const nt = (c + 1) >> 1;
+  const taps = new Float64Array(nt);
+  for (let t = 0; t < nt; t++) taps[t] = h[c + 2 * t + 1];
+  const edge = 2 * nt - 1;
+  let k = 0;
+  // Edges: samples outside x count as 0.
+  for (; k < m && 2 * k < edge; k++) y[k] = sideSum(x, 2 * k, taps, centre);
+  const last = Math.floor((n - 1 - edge) / 2);
+  for (; k <= last; k++) {
     const i = 2 * k;
     let s = centre * x[i];
-    if (i >= edge && i + edge < n) {
-      for (let t = 0; t < nt; t++) { const o = offArr[t]; s += tapArr[t] * (x[i - o] + x[i + o]); }
-    } else {
-      for (let t = 0; t < nt; t++) {
-        const o = offArr[t];
-        const a = i - o >= 0 ? x[i - o] : 0;
-        const b = i + o < n ? x[i + o] : 0;
-        s += tapArr[t] * (a + b);
-      }
-    }
+    for (let t = 0; t < nt; t++) s += taps[t] * (x[i - 2 * t - 1] + x[i + 2 * t + 1]);
     y[k] = s;
   }
+  for (; k < m; k++) y[k] = sideSum(x, 2 * k, taps, centre);
   return y;
+}
+
+function sideSum(x: ArrayLike<number>, i: number, taps: Float64Array, centre: number): number {
+  const n = x.length;
+  let s = centre * x[i];
+  for (let t = 0; t < taps.length; t++) {
+    const o = 2 * t + 1;
+    s += taps[t] * ((i - o >= 0 ? x[i - o] : 0) + (i + o < n ? x[i + o] : 0));
+  }
+  return s;
 }
 
 /**
