@@ -35,6 +35,8 @@ const FLAGS = {
   'wasted-spark-ratio': { type: 'string' }, 'wasted-spark-inverted': { type: 'boolean' }, cam: { type: 'boolean' },
   'fault-component': { type: 'string' }, fault: { type: 'string' }, 'fault-amplitude': { type: 'string' }, 'creep-pct': { type: 'string' },
   'rolling-slip-pct': { type: 'string' }, 'snr-db': { type: 'string' }, distractor: { type: 'string' }, 'resonance-hz': { type: 'string' },
+  'rpm-end': { type: 'string' }, 'engine-level': { type: 'string' }, 'firing-fluctuation-pct': { type: 'string' },
+  'impact-jitter-pct': { type: 'string' }, 'cam-lead-deg': { type: 'string' }, tick: { type: 'string', multiple: true },
   help: { type: 'boolean' },
 } as const;
 
@@ -51,7 +53,18 @@ const USAGE = 'usage: npm run generate -- --drive <engine.json> --out <dir|file.
   + '[--seed N] [--duration-s 10] [--sample-rate 48000] [--rpm 780] [--wander-pct 2] [--ref-kind cyl1|per-rev|per-cylinder|wheel] '
   + '[--ref-per-cycle N] [--wheel 60-2] [--wheel-sensor vr|hall] [--ref-polarity rising|falling] [--tdc-offset-deg 0] [--no-ringing] '
   + '[--wasted-spark-ratio 0.5] [--wasted-spark-inverted] [--cam] [--fault-component <name> --fault shaft|outer_race|inner_race|ball|cage|belt] '
-  + '[--fault-amplitude A] [--creep-pct 1] [--rolling-slip-pct 1.5] [--snr-db 6] [--distractor tick-train|clunk] [--resonance-hz 4000]';
+  + '[--fault-amplitude A] [--creep-pct 1] [--rolling-slip-pct 1.5] [--snr-db 6] [--distractor tick-train|clunk] [--resonance-hz 4000] '
+  + '[--rpm-end 2500] [--engine-level 1] [--firing-fluctuation-pct 0.3] [--impact-jitter-pct 1] [--cam-lead-deg 30] '
+  + '[--tick <cylinder>:<angleDeg>:<amplitude> …]';
+
+/** Parses one --tick value "cylinder:angleDeg:amplitude", e.g. "2:220:0.9". */
+function parseTick(value: string): { cylinder: number; angleDeg: number; amplitude: number } {
+  const parts = value.split(':').map(Number);
+  if (parts.length !== 3 || parts.some((p) => !Number.isFinite(p)) || !Number.isInteger(parts[0]) || parts[0] < 1 || parts[1] < 0 || parts[1] >= 720 || parts[2] < 0) {
+    throw new UsageError(`--tick must be <cylinder>:<angle 0–720>:<amplitude ≥ 0>, e.g. 2:220:0.9, got "${value}"`);
+  }
+  return { cylinder: parts[0], angleDeg: parts[1], amplitude: parts[2] };
+}
 
 function num(flag: string, value: string | undefined, integer = false): number | undefined {
   if (value === undefined) return undefined;
@@ -120,6 +133,12 @@ export function parseGenerateArgs(argv: string[]): GenerateRequest {
     snrDb: num('snr-db', v['snr-db']),
     distractor: distractor ? { kind: distractor } : undefined,
     resonanceHz: num('resonance-hz', v['resonance-hz']),
+    rpmEnd: num('rpm-end', v['rpm-end']),
+    engineLevel: num('engine-level', v['engine-level']),
+    firingFluctuationPct: num('firing-fluctuation-pct', v['firing-fluctuation-pct']),
+    impactJitterPct: num('impact-jitter-pct', v['impact-jitter-pct']),
+    camLeadDeg: num('cam-lead-deg', v['cam-lead-deg']),
+    injectorTicks: v.tick ? v.tick.map(parseTick) : undefined,
   };
   for (const key of Object.keys(options) as Array<keyof typeof options>) if (options[key] === undefined) delete options[key];
   return { drivePath: v.drive, out: v.out, format, preamble: v.preamble === true, options };
@@ -160,6 +179,8 @@ const OPTION_FLAGS: Record<string, string> = {
   seed: 'seed', durationS: 'duration-s', sampleRateHz: 'sample-rate', rpm: 'rpm', wanderPct: 'wander-pct', refKind: 'ref-kind',
   refPerCycle: 'ref-per-cycle', wheel: 'wheel', tdcOffsetDeg: 'tdc-offset-deg', wastedSparkRatio: 'wasted-spark-ratio',
   'fault.amplitude': 'fault-amplitude', creepPct: 'creep-pct', rollingSlipPct: 'rolling-slip-pct', snrDb: 'snr-db', resonanceHz: 'resonance-hz',
+  rpmEnd: 'rpm-end', engineLevel: 'engine-level', firingFluctuationPct: 'firing-fluctuation-pct', impactJitterPct: 'impact-jitter-pct',
+  camLeadDeg: 'cam-lead-deg',
 };
 
 /** Names the flag instead of the option key in a generator error ("generator option rpm: …" → "--rpm: …"). */

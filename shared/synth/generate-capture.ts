@@ -62,7 +62,7 @@ export function generateCapture(input: GenerateOptionsInput): GeneratedCapture {
   const samples = Math.round(o.durationS * fs);
   const rpm = o.rpm ?? drive.idleRpm ?? 780;
   const profile = synthesizeSpeedProfile(speedRng, {
-    sampleRateHz: fs, samples, rpm, wanderPct: o.wanderPct, firingFluctuationPct: o.firingFluctuationPct, cylinders: drive.cylinders,
+    sampleRateHz: fs, samples, rpm, rpmEnd: o.rpmEnd, wanderPct: o.wanderPct, firingFluctuationPct: o.firingFluctuationPct, cylinders: drive.cylinders,
   });
 
   const tickRingHz = Math.min(paramRng.between(2000, 3000), 0.4 * fs);
@@ -110,7 +110,7 @@ export function generateCapture(input: GenerateOptionsInput): GeneratedCapture {
       sampleRateHz: fs,
       durationS: samples / fs,
       channels: cam ? ['reference', 'pickup', 'cam'] : ['reference', 'pickup'],
-      rpm: { nominal: rpm, mean: speed.mean, min: speed.min, max: speed.max, wanderPct: o.wanderPct },
+      rpm: { nominal: rpm, end: o.rpmEnd, mean: speed.mean, min: speed.min, max: speed.max, wanderPct: o.wanderPct },
       reference: {
         kind: o.refKind,
         refPerCycle: o.refPerCycle,

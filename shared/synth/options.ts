@@ -65,7 +65,8 @@ const DriveInputSchema = z.custom<DriveDocument>(
  *   edge sits at −tdcOffsetDeg (a spark 10° before TDC: offset 10);
  * - a trigger wheel's reference edge is the first tooth after the gap; the wheel turns with the crank;
  * - `refPerCycle` (when set) draws N evenly spaced ignition-like pulses per 720° instead of `refKind`'s count;
- * - `rpm` null = the drive's idle rpm, else 780; `wanderPct` = the largest excursion of slow speed wander;
+ * - `rpm` null = the drive's idle rpm, else 780; `rpmEnd` (when set) ramps the speed linearly from
+ *   `rpm` to it over the capture; `wanderPct` = the largest excursion of slow speed wander;
  * - `rollingSlipPct` null = a seeded value in 1–2 % (cage lag); `resonanceHz` null = seeded 2.5–5.5 kHz;
  * - `snrDb` = planted-fault power over noise power across 0 … fs/2 (see CaptureTruth.snr).
  */
@@ -75,6 +76,7 @@ export const GenerateOptionsSchema = z.object({
   durationS: z.number().min(0.5).max(600).default(10),
   sampleRateHz: z.number().int().min(1000).max(1_000_000).default(48000),
   rpm: z.number().min(300).max(8000).nullable().default(null),
+  rpmEnd: z.number().min(300).max(8000).nullable().default(null),
   wanderPct: z.number().min(0).max(10).default(2),
   firingFluctuationPct: z.number().min(0).max(3).default(0.3),
   refKind: RefKindSchema.default('cyl1'),

@@ -1,6 +1,6 @@
 /**
- * Crank angle against time for a generated capture. Speed = held rpm × (1 + slow wander) × (1 +
- * small firing-order fluctuation); the wander is a sum of three slow sinusoids (0.08–0.7 Hz) and a
+ * Crank angle against time for a generated capture. Speed = base rpm × (1 + slow wander) × (1 +
+ * small firing-order fluctuation), the base rpm held or ramping linearly to `rpmEnd`; the wander is a sum of three slow sinusoids (0.08–0.7 Hz) and a
  * smoothed random walk, scaled so its largest excursion is exactly ±wanderPct. The angle is the
  * running sum of speed × dt in float64, in crank revolutions, with 0 = cylinder-1 TDC (power
  * stroke) so that 2 revolutions are one 720° engine cycle.
@@ -12,6 +12,8 @@ export interface SpeedProfileInput {
   sampleRateHz: number;
   samples: number;
   rpm: number;
+  /** Base speed at the end of the capture (a linear ramp from `rpm`); null = held. */
+  rpmEnd?: number | null;
   wanderPct: number;
   firingFluctuationPct: number;
   cylinders: number;
@@ -37,10 +39,11 @@ export function synthesizeSpeedProfile(rng: Rng, input: SpeedProfileInput): Spee
   const fluctPhase = rng.between(0, 2 * Math.PI);
   const thetaRev = new Float64Array(samples);
   let theta = rng.between(0, 2);
-  const revPerS = rpm / 60;
+  const startRevPerS = rpm / 60;
+  const slopeRevPerS2 = input.rpmEnd != null ? (input.rpmEnd - rpm) / 60 / durationS : 0;
   for (let i = 0; i < samples; i++) {
     thetaRev[i] = theta;
-    const speed = revPerS * (1 + wander[i]) * (1 + fluct * Math.sin(2 * Math.PI * firingOrder * theta + fluctPhase));
+    const speed = (startRevPerS + slopeRevPerS2 * i * dt) * (1 + wander[i]) * (1 + fluct * Math.sin(2 * Math.PI * firingOrder * theta + fluctPhase));
     theta += speed * dt;
   }
   return { sampleRateHz, thetaRev };

@@ -10,11 +10,32 @@ import { AnalysisSettingsSchema } from '../schemas/analysis-settings';
 import { generateCapture } from './generate-capture';
 import type { GenerateOptionsInput } from './options';
 import { judgeAccuracy, settingsFromTruth, type AccuracyOutcome } from './accuracy';
+import { encodeWav } from './encode-wav';
+import { encodeCsv } from './encode-csv';
+import { parseCaptureBytes } from '../formats/parse-capture-stream';
 
 /** One named capture recipe of the sweep (the seed and drive come from the sweep). */
 export interface AccuracyCase {
   name: string;
   options: Omit<GenerateOptionsInput, 'drive' | 'seed'>;
+  /**
+   * How the capture reaches the pipeline: in memory (default), or written as a 16-bit WAV
+   * (channels scaled to 0.9 of full scale) or a scope-style CSV and read back by shared/formats.
+   */
+  via?: 'memory' | 'wav16' | 'csv';
+}
+
+/** Channels as the pipeline would get them after writing and reading the capture file. */
+function throughFile(channels: Float32Array[], sampleRateHz: number, via: 'wav16' | 'csv'): { channels: Float32Array[]; sampleRateHz: number } {
+  const bytes = via === 'wav16'
+    ? encodeWav(channels.map((c) => {
+      let peak = 0;
+      for (let i = 0; i < c.length; i++) peak = Math.max(peak, Math.abs(c[i]));
+      return Float32Array.from(c, (x) => (peak > 0 ? (0.9 * x) / peak : x));
+    }), sampleRateHz, 'pcm16')
+    : new TextEncoder().encode(encodeCsv(channels, sampleRateHz, { timeUnit: 'ms', preamble: ['generated capture'], separator: ';', decimalComma: true }));
+  const capture = parseCaptureBytes(bytes, { name: via === 'wav16' ? 'generated.wav' : 'generated.csv' });
+  return { channels: capture.channels, sampleRateHz: capture.sampleRateHz };
 }
 
 function pick(drive: DriveDocument, test: (c: ComponentSpec) => boolean, fallbackIndex: number): string {
@@ -27,7 +48,8 @@ function pick(drive: DriveDocument, test: (c: ComponentSpec) => boolean, fallbac
  * The standard cases for a drive: each reference kind once (cylinder-1 pulse, wasted spark with
  * and without the other-polarity exhaust spark, one per cylinder with a cam channel, 60-2 VR and
  * 36-1 Hall wheels, a generic 3 per cycle), speed wander 2–5 %, SNR −3 to +3 dB, creep 0.5–3 %,
- * a tick-train distractor in one, faults of every kind spread over the drive's parts.
+ * faults of every kind spread over the drive's parts; one case goes through a 16-bit WAV file and
+ * one through a scope-style CSV. No distractors: those are in `distractorCasesFor`.
  */
 export function accuracyCasesFor(drive: DriveDocument): AccuracyCase[] {
   const alternator = pick(drive, (c) => c.kind === 'alternator', 0);
@@ -37,14 +59,14 @@ export function accuracyCasesFor(drive: DriveDocument): AccuracyCase[] {
   const belt = drive.belts[0]?.name;
   const cases: AccuracyCase[] = [
     { name: 'cyl1 · outer race · −3 dB · ±5 %', options: { refKind: 'cyl1', tdcOffsetDeg: 8, wanderPct: 5, snrDb: -3, creepPct: 1, fault: { component: alternator, fault: 'outer_race' } } },
-    { name: 'per-rev · inner race · 0 dB · tick train', options: { refKind: 'per-rev', tdcOffsetDeg: 10, wanderPct: 3, snrDb: 0, creepPct: 2, fault: { component: pump, fault: 'inner_race' }, distractor: { kind: 'tick-train' } } },
+    { name: 'per-rev · inner race · 0 dB', options: { refKind: 'per-rev', tdcOffsetDeg: 10, wanderPct: 3, snrDb: 0, creepPct: 2, fault: { component: pump, fault: 'inner_race' } } },
     { name: 'per-rev inverted wasted spark · ball · +3 dB', options: { refKind: 'per-rev', wastedSparkInverted: true, wanderPct: 2, snrDb: 3, creepPct: 1, fault: { component: alternator, fault: 'ball' } } },
-    { name: 'per-cylinder + cam · idler outer race · −3 dB', options: { refKind: 'per-cylinder', camChannel: true, wanderPct: 2, snrDb: -3, creepPct: 1.5, fault: { component: outerRing, fault: 'outer_race' } } },
+    { name: 'per-cylinder + cam · idler outer race · −3 dB · 16-bit WAV', via: 'wav16', options: { refKind: 'per-cylinder', camChannel: true, wanderPct: 2, snrDb: -3, creepPct: 1.5, fault: { component: outerRing, fault: 'outer_race' } } },
     { name: 'wheel 60-2 VR · shaft · −3 dB · ±5 %', options: { refKind: 'wheel', wheel: '60-2', tdcOffsetDeg: 84, wanderPct: 5, snrDb: -3, creepPct: 3, fault: { component: shaftPart, fault: 'shaft' } } },
     { name: 'wheel 36-1 Hall + cam · cage · 0 dB', options: { refKind: 'wheel', wheel: '36-1', wheelSensor: 'hall', camChannel: true, tdcOffsetDeg: 60, wanderPct: 3, snrDb: 0, creepPct: 0.5, fault: { component: outerRing, fault: 'cage' } } },
   ];
   if (belt) {
-    cases.push({ name: '3 per cycle · belt · +3 dB', options: { refKind: 'cyl1', refPerCycle: 3, wanderPct: 3, snrDb: 3, creepPct: 1, fault: { component: belt, fault: 'belt' } } });
+    cases.push({ name: '3 per cycle · belt · +3 dB · CSV (ms, decimal comma)', via: 'csv', options: { refKind: 'cyl1', refPerCycle: 3, wanderPct: 3, snrDb: 3, creepPct: 1, fault: { component: belt, fault: 'belt' } } });
   }
   return cases;
 }
@@ -60,6 +82,19 @@ export function clunkCasesFor(drive: DriveDocument): AccuracyCase[] {
   return [
     { name: 'cyl1 · outer race · 0 dB · clunks', options: { refKind: 'cyl1', wanderPct: 3, snrDb: 0, creepPct: 1, fault: { component: alternator, fault: 'outer_race' }, distractor: { kind: 'clunk' } } },
     { name: 'wheel 36-1 Hall + cam · cage · 0 dB · clunks', options: { refKind: 'wheel', wheel: '36-1', wheelSensor: 'hall', camChannel: true, tdcOffsetDeg: 60, wanderPct: 3, snrDb: 0, creepPct: 0.5, fault: { component: outerRing, fault: 'cage' }, distractor: { kind: 'clunk' } } },
+  ];
+}
+
+/**
+ * Cases with an impulsive distractor as loud as the fault (a tick train at an order no part has)
+ * or louder (random clunks): `clunkCasesFor` plus a tick-train case. The automatic envelope band
+ * may then go to the distractor, leaving the fault to the second or third band (`anyBandRank`).
+ */
+export function distractorCasesFor(drive: DriveDocument): AccuracyCase[] {
+  const pump = pick(drive, (c) => c.kind === 'water_pump', 1);
+  return [
+    { name: 'per-rev · inner race · 0 dB · tick train', options: { refKind: 'per-rev', tdcOffsetDeg: 10, wanderPct: 3, snrDb: 0, creepPct: 2, fault: { component: pump, fault: 'inner_race' }, distractor: { kind: 'tick-train' } } },
+    ...clunkCasesFor(drive),
   ];
 }
 
@@ -95,8 +130,9 @@ export function runAccuracySweep(options: SweepOptions): SweepRow[] {
         durationS: options.durationS ?? c.options.durationS ?? 4, sampleRateHz: options.sampleRateHz ?? c.options.sampleRateHz ?? 24000,
       });
       const settings = AnalysisSettingsSchema.parse(settingsFromTruth(capture.truth));
+      const input = c.via && c.via !== 'memory' ? throughFile(capture.channels, capture.sampleRateHz, c.via) : capture;
       const t0 = performance.now();
-      const result = runPipeline({ channels: capture.channels, sampleRateHz: capture.sampleRateHz }, settings);
+      const result = runPipeline({ channels: input.channels, sampleRateHz: input.sampleRateHz }, settings);
       const row: SweepRow = {
         caseName: c.name, seed, outcome: judgeAccuracy(capture.truth, result), pipelineMs: performance.now() - t0,
         warnings: result.warnings.map((w) => w.code),

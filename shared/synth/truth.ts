@@ -72,8 +72,8 @@ export interface CaptureTruth {
   sampleRateHz: number;
   durationS: number;
   channels: Array<'reference' | 'pickup' | 'cam'>;
-  /** Speeds over whole crank revolutions (per-revolution rpm for min and max). */
-  rpm: { nominal: number; mean: number; min: number; max: number; wanderPct: number };
+  /** Speeds over whole crank revolutions (per-revolution rpm for min and max); `end` = ramp target or null when held. */
+  rpm: { nominal: number; end: number | null; mean: number; min: number; max: number; wanderPct: number };
   reference: {
     kind: RefKind;
     refPerCycle: number | null;

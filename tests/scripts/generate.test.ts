@@ -34,7 +34,14 @@ describe('generate flags', () => {
     });
   });
 
+  it('reads repeated --tick flags and a speed ramp', () => {
+    const request = parseGenerateArgs(['--drive', drivePath, '--out', 'x.wav', '--tick', '2:220:0.9', '--tick', '1:40:0.2', '--rpm-end', '2400']);
+    expect(request.options.injectorTicks).toEqual([{ cylinder: 2, angleDeg: 220, amplitude: 0.9 }, { cylinder: 1, angleDeg: 40, amplitude: 0.2 }]);
+    expect(request.options.rpmEnd).toBe(2400);
+  });
+
   it.each([
+    [['--drive', drivePath, '--out', 'x.wav', '--tick', '2:900:1'], /--tick must be/],
     [['--out', 'x.wav'], /--drive/],
     [['--drive', drivePath], /--out/],
     [['--drive', drivePath, '--out', 'x.wav', '--rpm', 'fast'], /--rpm must be a number/],

@@ -55,6 +55,21 @@ describe('speed', () => {
   });
 });
 
+describe('speed ramp', () => {
+  it('ramps the speed linearly from rpm to rpmEnd (mean = the average of both ends)', () => {
+    const { channels, truth, sampleRateHz } = generateCapture({ drive, seed: 4, durationS: 4, sampleRateHz: 12000, rpm: 800, rpmEnd: 2400, wanderPct: 0, firingFluctuationPct: 0, refKind: 'cyl1' });
+    expect(truth.rpm.end).toBe(2400);
+    expect(truth.rpm.mean).toBeGreaterThan(1600 * 0.99);
+    expect(truth.rpm.mean).toBeLessThan(1600 * 1.01);
+    expect(truth.rpm.min).toBeLessThan(850);
+    expect(truth.rpm.max).toBeGreaterThan(2300);
+    const edges = risingEdges(channels[0], sampleRateHz, 1.0, 0.2, 0.004);
+    // One pulse per 720°: the interval falls from about 120/800 s to about 120/2400 s.
+    expect(edges[1] - edges[0]).toBeGreaterThan(0.13);
+    expect(edges[edges.length - 1] - edges[edges.length - 2]).toBeLessThan(0.052);
+  });
+});
+
 describe('injector ticks and their slots', () => {
   it('places an angle in the firing slot as the sample README states (220° in 1-3-4-2 → cylinder 3, 40° after its TDC)', () => {
     expect(slotOf(220, [1, 3, 4, 2])).toEqual({ slotIndex: 1, slotCylinder: 3, afterTdcDeg: 40 });
