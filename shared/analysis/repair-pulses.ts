@@ -3,7 +3,8 @@ import { type Warning } from './types';
 
 /**
  * Repair of a pulse train with evenly spaced pulses (DESIGN.md step 2): an extra pulse (a glitch,
- * or ringing past the dead time) splits one nominal interval in two and is removed; a missed pulse
+ * or ringing past the dead time) splits one nominal interval in two and is removed — of the two
+ * close pulses, the one that sits worse on the grid of the pulse before; a missed pulse
  * leaves an interval of about twice the nominal one and is inserted midway. Nominal = running
  * median of 9 intervals, so a ±5 % speed wander does not matter. Longer holes are counted as
  * their whole number of pitches (with a warning) so the angle stays right.
@@ -37,7 +38,17 @@ export function repairPulses(raw: number[]): RepairedPulses {
   for (let j = 1; j < raw.length; j++) {
     const nom = nom0[Math.min(j - 1, nom0.length - 1)];
     const dd = raw[j] - kept[kept.length - 1];
-    if (dd < 0.6 * nom) { removed++; continue; }
+    if (dd < 0.6 * nom) {
+      // Two pulses too close: keep the one that sits better on the grid of the one before.
+      removed++;
+      if (kept.length >= 2) {
+        const prev = kept[kept.length - 2];
+        const keepLast = Math.abs((kept[kept.length - 1] - prev) / nom - 1);
+        const takeNew = Math.abs((raw[j] - prev) / nom - 1);
+        if (takeNew < keepLast) kept[kept.length - 1] = raw[j];
+      }
+      continue;
+    }
     kept.push(raw[j]);
   }
   const d: number[] = [];
