@@ -65,6 +65,22 @@ async function navLabels(page: Page): Promise<string[]> {
   return page.getByRole('navigation', { name: 'Main' }).getByRole('link').allInnerTexts();
 }
 
+/**
+ * Opens the newest Outbox message to `to` whose list row does not match `skip`. The server hands
+ * mail to its fake after answering, so the message may land a moment later: reload until it is there.
+ */
+async function openOutboxMessage(page: Page, to: string, skip?: RegExp) {
+  await page.goto(`${server.baseUrl}/outbox`);
+  let rows = page.getByRole('list', { name: 'Messages' }).getByRole('link').filter({ hasText: to });
+  if (skip) rows = rows.filter({ hasNotText: skip });
+  for (let attempt = 0; attempt < 40 && (await rows.count()) === 0; attempt += 1) {
+    await page.waitForTimeout(250);
+    await page.reload();
+    await page.getByRole('heading', { name: 'Outbox' }).waitFor();
+  }
+  await rows.first().click();
+}
+
 function shot(page: Page, name: string) {
   return page.screenshot({ path: path.join(SCREENSHOTS, `${name}.png`), fullPage: true });
 }
@@ -139,7 +155,8 @@ describe('Foundation in the browser', () => {
     await shot(page, 'team-admin');
 
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Outbox' }).click();
-    await page.getByRole('list', { name: 'Messages' }).getByRole('link').filter({ hasText: email }).first().click();
+    await page.getByRole('heading', { name: 'Outbox' }).waitFor();
+    await openOutboxMessage(page, email);
     const inviteLink = page.getByRole('article').getByRole('link', { name: /\/invite\// });
     await inviteLink.waitFor();
     await shot(page, 'outbox-message');
@@ -177,8 +194,7 @@ describe('Foundation in the browser', () => {
     // The admin reads the mail fake's copy in the Outbox (no MAIL_URL in tests).
     const page = await newPage();
     await signIn(page, admin.email, admin.password);
-    await page.goto(`${server.baseUrl}/outbox`);
-    await page.getByRole('list', { name: 'Messages' }).getByRole('link').filter({ hasText: member.email }).first().click();
+    await openOutboxMessage(page, member.email, /invitation/i);
     const resetLink = page.getByRole('article').getByRole('link', { name: /\/reset-password\// });
     await resetLink.waitFor();
     const href = (await resetLink.getAttribute('href'))!.replace(/^https?:\/\/[^/]+/, server.baseUrl);
