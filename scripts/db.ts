@@ -36,6 +36,12 @@ export interface RunningDatabase {
   started: boolean;
   /** Stops the server if this call started it (SIGTERM, waits for it to exit); otherwise does nothing. */
   stop: () => Promise<void>;
+  /** Names of the databases on this server (system schemas left out). */
+  listDatabases: () => Promise<string[]>;
+  /** Drops a database (test runs clean up their own). */
+  dropDatabase: (database: string) => Promise<void>;
+  /** Stops the server whoever started it (SIGTERM to the pid in its pid file; waits up to 30 s). */
+  stopServer: () => Promise<void>;
 }
 
 const SERVER_CANDIDATES = ['/usr/sbin/mariadbd', '/usr/bin/mariadbd', '/usr/local/bin/mariadbd', '/usr/local/sbin/mariadbd'];
@@ -125,6 +131,38 @@ function pidAlive(pidFile: string): number | null {
   }
 }
 
+/**
+ * An exclusive lock file around "is it running? else start it", so two processes sharing a data
+ * directory (two test runs in one checkout) never start two servers on it. A lock left by a dead
+ * process is taken over.
+ */
+async function lockStartup(lockFile: string): Promise<() => void> {
+  const deadline = Date.now() + 90_000;
+  for (;;) {
+    try {
+      const fd = openSync(lockFile, 'wx');
+      writeFileSync(fd, String(process.pid));
+      closeSync(fd);
+      return () => rmSync(lockFile, { force: true });
+    } catch (error) {
+      if ((error as NodeJS.ErrnoException).code !== 'EEXIST') throw error;
+      const holder = Number(readFileSync(lockFile, 'utf8').trim() || NaN);
+      let holderAlive = false;
+      try {
+        if (Number.isInteger(holder) && holder > 0) {
+          process.kill(holder, 0);
+          holderAlive = true;
+        }
+      } catch {
+        holderAlive = false;
+      }
+      if (!holderAlive) rmSync(lockFile, { force: true });
+      else if (Date.now() > deadline) throw new Error(`${lockFile} is held by process ${holder}; remove it if that process is not starting MariaDB`);
+      else await sleep(200);
+    }
+  }
+}
+
 interface AppCredentials {
   user: string;
   password: string;
@@ -191,42 +229,47 @@ export async function startDatabase(options: StartDatabaseOptions): Promise<Runn
   mkdirSync(dirname(dataDir), { recursive: true });
 
   let child: ChildProcess | null = null;
-  const runningPid = pidAlive(pidFile);
-  if (runningPid !== null && existsSync(socketPath)) {
-    log(`reusing MariaDB already running from ${dataDir} (pid ${runningPid})`);
-    await waitUntilAnswering(socketPath, null, dataDir);
-  } else {
-    if (await portAnswers(options.port)) {
-      throw new Error(
-        `Port ${options.port} on 127.0.0.1 is taken by another program; stop it or choose another port (DB_PORT).`,
-      );
+  const unlock = await lockStartup(`${dataDir}.lock`);
+  try {
+    const runningPid = pidAlive(pidFile);
+    if (runningPid !== null && existsSync(socketPath)) {
+      log(`reusing MariaDB already running from ${dataDir} (pid ${runningPid})`);
+      await waitUntilAnswering(socketPath, null, dataDir);
+    } else {
+      if (await portAnswers(options.port)) {
+        throw new Error(
+          `Port ${options.port} on 127.0.0.1 is taken by another program; stop it or choose another port (DB_PORT).`,
+        );
+      }
+      const server = ensureMariadb(log);
+      initialise(dataDir, log);
+      // Only the owner may reach the socket (root logs in through it without a password).
+      chmodSync(dataDir, 0o700);
+      rmSync(socketPath, { force: true });
+      rmSync(pidFile, { force: true });
+      const isRoot = process.getuid?.() === 0;
+      const args = [
+        '--no-defaults',
+        `--datadir=${dataDir}`,
+        '--bind-address=127.0.0.1',
+        `--port=${options.port}`,
+        `--socket=${socketPath}`,
+        `--pid-file=${pidFile}`,
+        `--log-error=${join(dataDir, 'mariadb.err')}`,
+        ...(isRoot ? ['--user=root'] : []),
+        '--skip-name-resolve',
+        '--innodb-buffer-pool-size=64M',
+        '--max-connections=200',
+      ];
+      log(`starting MariaDB on 127.0.0.1:${options.port} (data in ${dataDir})`);
+      const out = openSync(join(dataDir, 'mariadbd.out'), 'a');
+      // Its own process group: a terminal's Ctrl-C reaches only us, and we stop it in order (SIGTERM, clean InnoDB shutdown).
+      child = spawn(server, args, { stdio: ['ignore', out, out], detached: true });
+      closeSync(out);
+      await waitUntilAnswering(socketPath, child, dataDir);
     }
-    const server = ensureMariadb(log);
-    initialise(dataDir, log);
-    // Only the owner may reach the socket (root logs in through it without a password).
-    chmodSync(dataDir, 0o700);
-    rmSync(socketPath, { force: true });
-    rmSync(pidFile, { force: true });
-    const isRoot = process.getuid?.() === 0;
-    const args = [
-      '--no-defaults',
-      `--datadir=${dataDir}`,
-      '--bind-address=127.0.0.1',
-      `--port=${options.port}`,
-      `--socket=${socketPath}`,
-      `--pid-file=${pidFile}`,
-      `--log-error=${join(dataDir, 'mariadb.err')}`,
-      ...(isRoot ? ['--user=root'] : []),
-      '--skip-name-resolve',
-      '--innodb-buffer-pool-size=64M',
-      '--max-connections=200',
-    ];
-    log(`starting MariaDB on 127.0.0.1:${options.port} (data in ${dataDir})`);
-    const out = openSync(join(dataDir, 'mariadbd.out'), 'a');
-    // Its own process group: a terminal's Ctrl-C reaches only us, and we stop it in order (SIGTERM, clean InnoDB shutdown).
-    child = spawn(server, args, { stdio: ['ignore', out, out], detached: true });
-    closeSync(out);
-    await waitUntilAnswering(socketPath, child, dataDir);
+  } finally {
+    unlock();
   }
 
   const creds = appCredentials(dataDir);
@@ -243,7 +286,40 @@ export async function startDatabase(options: StartDatabaseOptions): Promise<Runn
     });
     return stopping;
   };
-  return { url, started: child !== null, stop };
+  const withAdmin = async <T>(fn: (conn: mariadb.Connection) => Promise<T>): Promise<T> => {
+    const conn = await adminConnection(socketPath);
+    try {
+      return await fn(conn);
+    } finally {
+      await conn.end();
+    }
+  };
+  const SYSTEM = new Set(['information_schema', 'mysql', 'performance_schema', 'sys']);
+  return {
+    url,
+    started: child !== null,
+    stop,
+    listDatabases: () =>
+      withAdmin(async (conn) => {
+        const rows = (await conn.query('SHOW DATABASES')) as Array<{ Database: string }>;
+        return rows.map((r) => r.Database).filter((d) => !SYSTEM.has(d));
+      }),
+    dropDatabase: (name) => withAdmin(async (conn) => void (await conn.query(`DROP DATABASE IF EXISTS \`${name.replace(/`/g, '')}\``))),
+    stopServer: async () => {
+      // Under the start-up lock, so a process starting meanwhile waits and then starts a fresh server.
+      const release = await lockStartup(`${dataDir}.lock`);
+      try {
+        if (owned) return await stop();
+        const pid = pidAlive(pidFile);
+        if (pid === null) return;
+        process.kill(pid, 'SIGTERM');
+        const deadline = Date.now() + 30_000;
+        while (pidAlive(pidFile) !== null && Date.now() < deadline) await sleep(200);
+      } finally {
+        release();
+      }
+    },
+  };
 }
 
 async function main(): Promise<void> {

@@ -15,6 +15,7 @@ export interface AppContext {
   logger: Logger;
   passport: passportModule.Authenticator;
   signInLimiter: RequestHandler;
+  resetLimiter: RequestHandler;
   csrf: Csrf;
   /** Base URL for e-mailed links, without a trailing slash. */
   publicUrl: string;

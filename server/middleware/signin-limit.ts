@@ -25,3 +25,25 @@ export function signInLimit(maxFailures: number, windowMin: number): RequestHand
     },
   });
 }
+
+/**
+ * Password-reset requests per IP + e-mail: at most `max` per `windowMin` minutes (each one sends a
+ * mail), then 429 `too_many_attempts`. Keeps the reset form from being used to flood an inbox.
+ */
+export function resetRequestLimit(max = 5, windowMin = 15): RequestHandler {
+  return rateLimit({
+    windowMs: windowMin * 60_000,
+    limit: max,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    keyGenerator: (req) => {
+      const email = typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase() : '';
+      return `${ipKeyGenerator(req.ip ?? '')}|${email}`;
+    },
+    handler: (_req, res) => {
+      res.status(429).json({
+        error: { code: 'too_many_attempts', message: `Too many reset requests for this address; wait ${windowMin} minutes and check your mail` },
+      });
+    },
+  });
+}

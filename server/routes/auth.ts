@@ -63,6 +63,7 @@ export const authRoutes: RouteRow[] = [
     summary: 'e-mail a password-reset link (always 202)',
     handlers: [
       validate({ body: PasswordResetRequestSchema }),
+      (req, res, next) => appContext(req).resetLimiter(req, res, next),
       (req, res) => {
         const ctx = appContext(req);
         // Reply before the lookup and the mail so the answer says nothing about the address.

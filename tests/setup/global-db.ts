@@ -1,9 +1,16 @@
 // Vitest global set-up for the `server` and `e2e` projects: starts the test MariaDB (port 3308,
-// .data/test-db; TEST_DB_PORT / TEST_DB_DATA_DIR override), drops and re-creates the test databases,
-// migrates them once and provides their URLs to tests (inject('databaseUrl'), inject('e2eDatabaseUrl')).
-// Vitest runs a project's globalSetup once per project, in the same process and one after the
-// other, so the work is shared through globalThis: the first call starts and migrates, later calls
-// reuse it, and the last teardown stops the server (only if this run started it).
+// .data/test-db; TEST_DB_PORT / TEST_DB_DATA_DIR override), creates this run's databases, migrates
+// them once and provides their URLs (inject('databaseUrl'), inject('e2eDatabaseUrl'),
+// inject('scratchDatabaseUrl')).
+//
+// Two kinds of sharing are handled:
+// - Vitest runs a project's globalSetup once per project, in one process and one after the other,
+//   so the work is shared through globalThis: the first call prepares, later calls reuse it, and
+//   the last teardown cleans up.
+// - Several test runs may share one checkout (several people, or a watch run beside `npm test`).
+//   Each run therefore gets its own databases, named after its process id, so no run drops another's
+//   rows; databases of runs that have died are dropped; and the server is stopped only by the last
+//   run to finish (the one that finds no other run's databases left), whoever started it.
 import type { TestProject } from 'vitest/node';
 import { startDatabase, type RunningDatabase } from '../../scripts/db';
 import { createSequelize } from '../../server/db/sequelize';
@@ -20,22 +27,51 @@ declare module 'vitest' {
   }
 }
 
+interface Urls {
+  databaseUrl: string;
+  e2eDatabaseUrl: string;
+  scratchDatabaseUrl: string;
+}
+
+interface Prepared {
+  db: RunningDatabase;
+  urls: Urls;
+  names: string[];
+}
+
 interface Shared {
-  ready: Promise<{ db: RunningDatabase; urls: { databaseUrl: string; e2eDatabaseUrl: string; scratchDatabaseUrl: string } }>;
+  ready: Promise<Prepared>;
   refs: number;
 }
 
 const KEY = Symbol.for('crankwise.test-db');
 const store = globalThis as unknown as Record<symbol, Shared | undefined>;
+const RUN_DB = /^crankwise_(test|e2e|scratch)_r(\d+)$/;
 
-async function prepare(): Promise<Shared['ready'] extends Promise<infer T> ? T : never> {
+function alive(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+async function prepare(): Promise<Prepared> {
   const port = Number(process.env.TEST_DB_PORT ?? 3308);
   const dataDir = process.env.TEST_DB_DATA_DIR;
   const log = (m: string) => process.stderr.write(`[test-db] ${m}\n`);
-  const db = await startDatabase({ name: 'test-db', port, dataDir, database: 'crankwise_test', fresh: true, log });
-  const e2e = await startDatabase({ name: 'test-db', port, dataDir, database: 'crankwise_e2e', fresh: true });
-  const scratch = await startDatabase({ name: 'test-db', port, dataDir, database: 'crankwise_scratch', fresh: true });
+  const run = `r${process.pid}`;
+  const names = [`crankwise_test_${run}`, `crankwise_e2e_${run}`, `crankwise_scratch_${run}`];
+  const [testDb, e2eDb, scratchDb] = names as [string, string, string];
+  const db = await startDatabase({ name: 'test-db', port, dataDir, database: testDb, fresh: true, log });
   try {
+    for (const name of await db.listDatabases()) {
+      const match = RUN_DB.exec(name);
+      if (match && !alive(Number(match[2]))) await db.dropDatabase(name);
+    }
+    const e2e = await startDatabase({ name: 'test-db', port, dataDir, database: e2eDb, fresh: true });
+    const scratch = await startDatabase({ name: 'test-db', port, dataDir, database: scratchDb, fresh: true });
     for (const url of [db.url, e2e.url]) {
       const sequelize = await createSequelize(url);
       try {
@@ -44,17 +80,27 @@ async function prepare(): Promise<Shared['ready'] extends Promise<infer T> ? T :
         await sequelize.close();
       }
     }
+    return { db, names, urls: { databaseUrl: db.url, e2eDatabaseUrl: e2e.url, scratchDatabaseUrl: scratch.url } };
   } catch (error) {
-    // Stop what we started (else the run never exits) and report one readable line: the driver's
-    // error object carries the connection config, password included.
-    await db.stop();
+    // Clean up (else the run never exits) and report one readable line: the driver's error object
+    // carries the connection config, password included.
+    await finish({ db, names, urls: { databaseUrl: '', e2eDatabaseUrl: '', scratchDatabaseUrl: '' } }).catch(() => {});
     const cause = error instanceof Error ? `${error.message}${error.cause instanceof Error ? ` (${error.cause.message})` : ''}` : String(error);
     throw new Error(`test database set-up failed: ${cause.split('\n')[0]}`);
   }
-  return { db, urls: { databaseUrl: db.url, e2eDatabaseUrl: e2e.url, scratchDatabaseUrl: scratch.url } };
 }
 
-/** Starts (or reuses) the test database and provides its URLs to the project's tests. */
+/** Drops this run's databases and stops the server when no other live run still uses it. */
+async function finish({ db, names }: Prepared): Promise<void> {
+  for (const name of names) await db.dropDatabase(name);
+  const others = (await db.listDatabases()).filter((name) => {
+    const match = RUN_DB.exec(name);
+    return match !== null && alive(Number(match[2]));
+  });
+  if (others.length === 0) await db.stopServer();
+}
+
+/** Starts (or reuses) the test database and provides this run's URLs to the project's tests. */
 export default async function setup(project: TestProject): Promise<() => Promise<void>> {
   let shared = store[KEY];
   if (!shared) {
@@ -74,7 +120,6 @@ export default async function setup(project: TestProject): Promise<() => Promise
     current.refs -= 1;
     if (current.refs > 0) return;
     store[KEY] = undefined;
-    const { db } = await current.ready;
-    await db.stop();
+    await finish(await current.ready);
   };
 }

@@ -48,4 +48,14 @@ describe('password reset', () => {
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('token_invalid');
   });
+
+  it('answers 429 after five requests for one address within the window', async () => {
+    const a = await t.agent();
+    const email = `flood.${uniq()}@example.test`;
+    for (let i = 0; i < 5; i++) expect((await a.post('/api/auth/password-reset', { email })).status).toBe(202);
+    const sixth = await a.post('/api/auth/password-reset', { email });
+    expect(sixth.status).toBe(429);
+    expect(sixth.body.error.code).toBe('too_many_attempts');
+    expect((await a.post('/api/auth/password-reset', { email: `other.${uniq()}@example.test` })).status).toBe(202);
+  });
 });
