@@ -24,6 +24,9 @@ import { accuracyCasesFor, clunkCasesFor, formatSweepTable, type SweepRow } from
 import type { GenerateOptionsInput } from '../shared/synth/options';
 import type { DriveDocument } from '../shared/drive/types';
 import { drives, scenarios } from '../tests/helpers/scenarios';
+import { candidateLines } from '../shared/drive/candidate-lines';
+import { patternsCoincide } from '../shared/ranking/indistinguishable';
+import type { Fault } from '../shared/drive/types';
 
 interface Case {
   name: string;
@@ -47,11 +50,21 @@ function parse(): { seeds: number; only: string | null; pipelineTable: boolean }
   }
 }
 
+/** Parts whose whole line pattern for the fault equals the planted part's (same ratio and bearing). */
+function partnersOf(drive: DriveDocument, component: string, fault: Fault): string[] {
+  const all = candidateLines(drive);
+  const planted = all.find((c) => c.component.toLowerCase() === component.toLowerCase());
+  if (!planted || planted.target === 'belt') return [];
+  return all.filter((c) => c !== planted && c.target === 'component' && patternsCoincide(planted, c, fault, 1 / 32, 100)).map((c) => c.component);
+}
+
 function allCases(): Case[] {
   const out: Case[] = scenarios.map((s) => ({ name: s.name, drive: s.drive, options: s.options, indistinguishableFrom: [...s.indistinguishableFrom] }));
   for (const [label, drive] of Object.entries(drives)) {
     for (const c of [...accuracyCasesFor(drive), ...clunkCasesFor(drive)]) {
-      out.push({ name: `${label}: ${c.name}`, drive, options: { durationS: 6, sampleRateHz: 24000, ...c.options }, indistinguishableFrom: [] });
+      const planted = c.options.fault;
+      const partners = planted ? partnersOf(drive, planted.component, planted.fault) : [];
+      out.push({ name: `${label}: ${c.name}`, drive, options: { durationS: 6, sampleRateHz: 24000, ...c.options }, indistinguishableFrom: partners });
     }
   }
   return out;

@@ -31,5 +31,5 @@ export function patternsCoincide(
 
 /** What would separate two parts the capture cannot tell apart, for the evidence sentence. */
 export function separationAdvice(names: string[]): string {
-  return `cannot be told from ${names.join(', ')} by this capture (same ratio and bearing): probe nearer each part, spin them by hand with the belt off, or compare a short belt-off run`;
+  return `cannot be told from ${names.join(', ')} by this capture (same ratio and bearing): probe nearer each part, or take the belt off and spin each by hand`;
 }

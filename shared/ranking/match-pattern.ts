@@ -49,13 +49,18 @@ const FOUND_DB = 6;
 const HARMONIC_WEIGHT = [1, 0.8, 0.6, 0.5];
 const SIDEBAND_WEIGHT = 0.2;
 
-function combWeight(offCombFound: number): number {
-  if (offCombFound >= 2) return 0.8;
-  if (offCombFound === 1) return 0.5;
-  return 0.2;
+/**
+ * Weight of a line on the engine's 0.5-order comb, judged from the whole pattern: more of its
+ * harmonics off the comb make it likelier the part's own. In the raw order spectrum the engine's
+ * lines are always there; the envelope spectra are taken from the residual after the 720°
+ * average (DESIGN.md step 5), which has removed most of them, so a comb line there counts more.
+ */
+function combWeight(offCombFound: number, engineLinesRemoved: boolean): number {
+  const weights = engineLinesRemoved ? [0.5, 0.7, 0.9] : [0.2, 0.5, 0.8];
+  return weights[Math.min(2, offCombFound)];
 }
 
-function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spectrumIndex: number): PatternMatch {
+function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spectrumIndex: number, engineLinesRemoved: boolean): PatternMatch {
   const res = spectrum.resolution;
   const top = topOrder(spectrum);
   const carriers: { line: CandidateLine; found: FoundLine; h: number }[] = [];
@@ -82,7 +87,7 @@ function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spe
   const gain = (o: number) => lineCycleGain(o, search.cyclesAveraged);
   const isComb = (o: number) => onEngineComb(o, res) || gain(o) > 0.3;
   const offCombFound = carriers.filter((c) => c.found.snrDb >= FOUND_DB && !isComb(c.found.order)).length;
-  const cw = combWeight(offCombFound);
+  const cw = combWeight(offCombFound, engineLinesRemoved);
   const lines: PatternLine[] = [];
   // Carriers: the weighted strengths found over those of every harmonic the spectrum holds.
   let carrierTotal = 0;
@@ -160,8 +165,9 @@ export function emptyMatch(search: PatternSearch): PatternMatch {
 /**
  * Best reading of the pattern over the given spectra (e.g. the envelope bands), with the number
  * of other spectra in which the same fundamental's harmonics also stand ≥ 6 dB above the floor.
+ * `engineLinesRemoved[i]` says spectrum i is of the residual after the 720° average (envelopes).
  */
-export function matchPattern(spectra: readonly OrderSpectrum[], search: PatternSearch): PatternMatch {
+export function matchPattern(spectra: readonly OrderSpectrum[], search: PatternSearch, engineLinesRemoved: readonly boolean[] = []): PatternMatch {
   let best = emptyMatch(search);
   spectra.forEach((spectrum, index) => {
     const res = spectrum.resolution;
@@ -172,7 +178,7 @@ export function matchPattern(spectra: readonly OrderSpectrum[], search: PatternS
         const f = peak.order / line.harmonic;
         if (tried.some((t) => Math.abs(t - f) < 0.25 * res / line.harmonic)) continue;
         tried.push(f);
-        const m = evaluate(spectrum, f, search, index);
+        const m = evaluate(spectrum, f, search, index, engineLinesRemoved[index] ?? false);
         if (m.total > best.total) best = m;
       }
     }

@@ -60,21 +60,22 @@ function searchFor(cc: ComponentCandidates, fault: Fault, cyclesAveraged: number
   return { carriers, sidebands, modulatorWindow, relative, cyclesAveraged };
 }
 
-function spectraFor(fault: Fault, input: RankingInput): OrderSpectrum[] {
+/** The spectra a fault is looked for in, and whether each is of the residual after the 720° average (the envelopes). */
+function spectraFor(fault: Fault, input: RankingInput): { spectra: OrderSpectrum[]; residual: boolean[] } {
   const envelopes = input.envelopes.map((b) => b.spectrum);
-  if (fault === 'shaft') return [input.orders];
-  if (fault === 'belt') return [input.orders, ...envelopes];
-  return envelopes;
+  if (fault === 'shaft') return { spectra: [input.orders], residual: [false] };
+  if (fault === 'belt') return { spectra: [input.orders, ...envelopes], residual: [false, ...envelopes.map(() => true)] };
+  return { spectra: envelopes, residual: envelopes.map(() => true) };
 }
 
 function matchFault(cc: ComponentCandidates, fault: Fault, input: RankingInput, slip: SlipEstimate | null): PatternMatch {
-  const spectra = spectraFor(fault, input);
+  const { spectra, residual } = spectraFor(fault, input);
   if (spectra.length === 0) return emptyMatch(searchFor(cc, fault, input.cyclesAveraged));
-  const full = matchPattern(spectra, searchFor(cc, fault, input.cyclesAveraged));
+  const full = matchPattern(spectra, searchFor(cc, fault, input.cyclesAveraged), residual);
   if (!slip || fault === 'shaft' || cc.regime === 'fixed') return full;
   // The part's measured slip narrows its bearing windows; prefer that reading unless it loses most of the evidence.
-  const narrowed = matchPattern(spectra, searchFor(cc, fault, input.cyclesAveraged, slip.slip));
-  return narrowed.total >= 0.6 * full.total && narrowed.total > 0 ? { ...narrowed, total: narrowed.total * 1.1 } : full;
+  const narrowed = matchPattern(spectra, searchFor(cc, fault, input.cyclesAveraged, slip.slip), residual);
+  return narrowed.total >= 0.6 * full.total && narrowed.total > 0 ? { ...narrowed, total: Math.min(1, narrowed.total * 1.1) } : full;
 }
 
 function toMatched(match: PatternMatch): MatchedLine[] {
@@ -138,6 +139,19 @@ function markIndistinguishable(scored: Scored[], input: RankingInput): void {
   }
   for (const s of scored) {
     if (s.entry.indistinguishableFrom.length > 0) s.entry.evidence += `; ${separationAdvice(s.entry.indistinguishableFrom)}`;
+  }
+  // Near-equal ratios: another part whose same fault reads the very same lines almost as well is
+  // not indistinguishable (its pattern differs within the slip allowance), but the technician
+  // should know the capture leans on slip to choose between them.
+  for (const a of live) {
+    const strongest = a.match.lines.filter((l) => l.line.sideband === 0).sort((x, y) => y.found.snrDb - x.found.snrDb)[0];
+    if (!strongest) continue;
+    const rivals = scored.filter((b) => b !== a && b.fault === a.fault && b.candidates.target === 'component'
+      && b.candidates.component !== a.candidates.component && !a.entry.indistinguishableFrom.includes(b.entry.component)
+      && b.score >= 0.85 * a.score && b.match.lines.some((l) => Math.abs(l.found.order - strongest.found.order) <= res));
+    if (rivals.length > 0) {
+      a.entry.evidence += `; the same lines also fit ${rivals.map((r) => r.entry.component).join(', ')} with a different slip (near-equal ratio): a probe nearer each part separates them`;
+    }
   }
 }
 

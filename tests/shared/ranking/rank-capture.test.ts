@@ -103,10 +103,11 @@ describe('rankCapture on synthetic spectra', () => {
     const alt = ranking.find((e) => e.component === 'Alternator' && e.fault === 'outer_race')!;
     expect(ranking[0]).toBe(alt);
     expect(alt.evidence).toMatch(/1 of 3 on engine orders/);
-    // The same three lines all on the comb (8.0, 16.0, 24.0) count far less.
+    // The same three lines all on the comb (8.0, 16.0, 24.0) count much less (envelope spectra are
+    // of the residual after the 720° average, which has removed most engine lines, so not nothing).
     const onComb = synthInput(engineComb(64, 4, 26), [[8, 16, 24].map((order, i) => ({ order, snrDb: 20 - 2 * i }))], { seed: 4 });
     const altOnComb = rankCapture(i4, onComb).find((e) => e.component === 'Alternator' && e.fault === 'outer_race')!;
-    expect(altOnComb.score).toBeLessThan(alt.score / 2);
+    expect(altOnComb.score).toBeLessThan(0.6 * alt.score);
   });
 
   it('marks entries of a bearing known only by rule of thumb as approximate', () => {
@@ -125,7 +126,7 @@ describe('rankCapture on synthetic spectra', () => {
     expect(topTwo.every((e) => e.fault === 'outer_race')).toBe(true);
     expect(topTwo[0].indistinguishableFrom).toEqual([topTwo[1].component]);
     expect(topTwo[1].indistinguishableFrom).toEqual([topTwo[0].component]);
-    expect(topTwo[0].evidence).toMatch(/belt-off|probe nearer/);
+    expect(topTwo[0].evidence).toMatch(/probe nearer each part/);
     // Parts with merely overlapping windows are not named.
     expect(ranking.find((e) => e.component === 'Alternator' && e.fault === 'outer_race')?.indistinguishableFrom).toEqual([]);
   });
