@@ -38,6 +38,18 @@ export function BearingDetails({ row, index, errors, readOnly, onChange }: {
           </label>
         ))}
       </div>
+      <label className="grid w-32 gap-1 text-xs text-muted-foreground">
+        Turning ring
+        {readOnly ? <Shown>{row.rotatingRing || 'inner'}</Shown> : (
+          <select aria-label={`Turning ring of row ${index + 1}`} value={row.rotatingRing}
+            className="h-8 rounded-md border border-input bg-card px-1.5 text-sm text-foreground shadow-xs"
+            onChange={(e) => onChange({ rotatingRing: e.target.value as DraftComponent['rotatingRing'] })}>
+            <option value="">inner (default)</option>
+            <option value="inner">inner</option>
+            <option value="outer">outer (most idlers)</option>
+          </select>
+        )}
+      </label>
       <div className="flex flex-wrap items-start gap-2 border-l border-border pl-4">
         {FACTORS.map(([field, label]) => (
           <label key={field} className="grid w-24 gap-1 text-xs text-muted-foreground">

@@ -1,8 +1,31 @@
 import { useMemo } from 'react';
 import type { DriveDocument } from '../../../../shared/drive/types';
-import { layoutDrive } from '../lib/belt-layout';
+import { layoutDrive, type SketchPulley } from '../lib/belt-layout';
 
 const BELT_COLOURS = ['var(--chart-1)', 'var(--chart-2)', 'var(--chart-4)', 'var(--chart-5)', 'var(--chart-3)'];
+
+/** Name and diameter of a pulley, placed outwards from its belt's loop so lines and labels do not meet. */
+function PulleyLabel({ p, centre, font }: { p: SketchPulley; centre: { x: number; y: number }; font: number }) {
+  const dx = p.x - centre.x;
+  const dy = p.y - centre.y;
+  const len = Math.hypot(dx, dy) || 1;
+  const ux = dx / len;
+  const uy = dy / len;
+  // Outwards is clear for a backside pulley too: the belt passes on its inner side.
+  const gap = p.r + font * 0.8;
+  const sx = ux;
+  const sy = uy;
+  const x = p.x + sx * gap;
+  const y = p.y + sy * gap + (sy > 0.3 ? font * 0.8 : sy < -0.3 ? -font * 1.1 : 0);
+  const anchor = sx > 0.35 ? 'start' : sx < -0.35 ? 'end' : 'middle';
+  return (
+    <text x={x} y={y} textAnchor={anchor} fontSize={font} fill="var(--foreground)">
+      {p.component}
+      {p.backside ? ' (backside)' : ''}
+      <tspan x={x} dy={font * 1.1} fontSize={font * 0.85} fill="var(--muted-foreground)" fontFamily="var(--font-mono)">⌀{Math.round(p.r * 2)}</tspan>
+    </text>
+  );
+}
 
 /**
  * A schematic of the drive drawn from the table: pulleys as circles sized by their effective
@@ -33,17 +56,7 @@ export function BeltSketch({ doc }: { doc: Pick<DriveDocument, 'belts' | 'compon
               <circle cx={p.x} cy={p.y} r={p.r} fill="var(--card)" stroke="var(--foreground)" strokeWidth={font * 0.12}
                 strokeDasharray={p.backside ? `${font * 0.5} ${font * 0.3}` : undefined} />
               <circle cx={p.x} cy={p.y} r={Math.min(p.r * 0.18, font * 0.5)} fill="var(--muted-foreground)" />
-              {first ? (
-                <text x={p.x} y={p.y + p.r + font * 1.1} textAnchor="middle" fontSize={font} fill="var(--foreground)">
-                  {p.component}
-                  {p.backside ? ' (backside)' : ''}
-                </text>
-              ) : null}
-              {first ? (
-                <text x={p.x} y={p.y + p.r + font * 2.2} textAnchor="middle" fontSize={font * 0.85} fill="var(--muted-foreground)" fontFamily="var(--font-mono)">
-                  ⌀{Math.round(p.r * 2)}
-                </text>
-              ) : null}
+              {first ? <PulleyLabel p={p} centre={belt.centre} font={font} /> : null}
             </g>
           );
         }))}

@@ -17,7 +17,7 @@ export function CellInput({ error, numeric, className, ...props }: InputHTMLAttr
         )}
         {...props}
       />
-      {error ? <span className="max-w-48 text-[11px] leading-tight text-destructive">{error}</span> : null}
+      {error ? <span className="min-w-36 max-w-56 text-[11px] leading-tight text-destructive">{error}</span> : null}
     </div>
   );
 }

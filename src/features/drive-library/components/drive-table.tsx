@@ -40,22 +40,19 @@ export function DriveTable({ rows, belts, errors, computed, readOnly, onChange, 
     <Table aria-label="Accessory drive">
       <TableHeader>
         <TableRow>
-          <TableHead className="min-w-36">Name</TableHead>
+          <TableHead className="min-w-40">Name</TableHead>
           <TableHead className="min-w-32">Kind</TableHead>
           <TableHead className="min-w-28">Belt</TableHead>
-          <TableHead className="text-right">Pulley mm</TableHead>
-          <TableHead className="text-right">Fixed ratio</TableHead>
+          <TableHead className="text-right" title="Effective pulley diameter; for a part on no belt, its fixed ratio">Pulley mm / ratio</TableHead>
           <TableHead>Flags</TableHead>
           <TableHead className="min-w-32">Bearing</TableHead>
-          <TableHead>Turning ring</TableHead>
-          <TableHead className="border-l border-border text-right">Ratio</TableHead>
-          <TableHead className="text-right">Belt m/s</TableHead>
-          <TableHead className="text-right">1×</TableHead>
-          <TableHead className="text-right">FTF</TableHead>
-          <TableHead className="text-right">BPFO</TableHead>
-          <TableHead className="text-right">BPFI</TableHead>
-          <TableHead className="text-right">2×BSF</TableHead>
-          <TableHead className="text-right">Belt pass</TableHead>
+          <TableHead className="border-l border-border px-1.5 text-right" title="Part speed / crank speed: its shaft line (1×) in crank orders">Ratio 1×</TableHead>
+          <TableHead className="px-1.5 text-right">Belt m/s</TableHead>
+          <TableHead className="px-1.5 text-right">FTF</TableHead>
+          <TableHead className="px-1.5 text-right">BPFO</TableHead>
+          <TableHead className="px-1.5 text-right">BPFI</TableHead>
+          <TableHead className="px-1.5 text-right">2×BSF</TableHead>
+          <TableHead className="px-1.5 text-right">Belt pass</TableHead>
           {readOnly ? null : <TableHead className="sr-only">Remove</TableHead>}
         </TableRow>
       </TableHeader>
@@ -98,13 +95,13 @@ export function DriveTable({ rows, belts, errors, computed, readOnly, onChange, 
                   )}
                 </TableCell>
                 <TableCell className="w-24">
-                  {crank ? null : readOnly ? <Shown mono>{row.pulleyMm}</Shown> : (
-                    <CellInput numeric aria-label={`Pulley mm of row ${i + 1}`} value={row.pulleyMm} error={err('pulleyMm')} onChange={(e) => onChange(i, { pulleyMm: e.target.value })} />
-                  )}
-                </TableCell>
-                <TableCell className="w-20">
-                  {crank ? null : readOnly ? <Shown mono>{row.fixedRatio}</Shown> : (
-                    <CellInput numeric aria-label={`Fixed ratio of row ${i + 1}`} value={row.fixedRatio} error={err('fixedRatio')} onChange={(e) => onChange(i, { fixedRatio: e.target.value })} />
+                  {crank ? null : row.belt ? (
+                    readOnly ? <Shown mono>{row.pulleyMm}</Shown> : (
+                      <CellInput numeric aria-label={`Pulley mm of row ${i + 1}`} value={row.pulleyMm} error={err('pulleyMm')} onChange={(e) => onChange(i, { pulleyMm: e.target.value })} />
+                    )
+                  ) : readOnly ? <Shown mono>{row.fixedRatio ? `×${row.fixedRatio}` : ''}</Shown> : (
+                    <CellInput numeric aria-label={`Fixed ratio of row ${i + 1}`} placeholder="ratio" value={row.fixedRatio} error={err('fixedRatio') ?? err('pulleyMm')}
+                      onChange={(e) => onChange(i, { fixedRatio: e.target.value })} />
                   )}
                 </TableCell>
                 <TableCell>
@@ -116,7 +113,7 @@ export function DriveTable({ rows, belts, errors, computed, readOnly, onChange, 
                   ) : (
                     <div className="grid gap-0.5 text-xs">
                       <label className="flex items-center gap-1.5"><input type="checkbox" checked={row.backside} onChange={(e) => onChange(i, { backside: e.target.checked })} />backside</label>
-                      <label className="flex items-center gap-1.5"><input type="checkbox" checked={row.overrunning} onChange={(e) => onChange(i, { overrunning: e.target.checked })} />overrunning</label>
+                      <label className="flex items-center gap-1.5"><input type="checkbox" checked={row.overrunning} onChange={(e) => onChange(i, { overrunning: e.target.checked })} />overrun</label>
                       {err('backside') ? <span className="text-[11px] text-destructive">{err('backside')}</span> : null}
                     </div>
                   )}
@@ -125,40 +122,31 @@ export function DriveTable({ rows, belts, errors, computed, readOnly, onChange, 
                   {crank ? null : (
                     <button type="button" onClick={() => setOpen({ ...open, [row.id]: !expanded })} aria-expanded={expanded}
                       className={cn('rounded px-1 text-left text-sm underline-offset-2 hover:underline', bearingErrors.length > 0 && 'text-destructive')}>
-                      {bearingSummary(row)}{bearingErrors.length > 0 ? ` (${bearingErrors.length} to fix)` : ''}
+                      {bearingSummary(row)}
+                      <span className="text-muted-foreground"> · {row.rotatingRing || 'inner'} ring</span>
+                      {bearingErrors.length > 0 ? ` (${bearingErrors.length} to fix)` : ''}
                     </button>
                   )}
                 </TableCell>
-                <TableCell>
-                  {crank ? null : readOnly ? <Shown>{row.rotatingRing || 'inner'}</Shown> : (
-                    <select aria-label={`Turning ring of row ${i + 1}`} className={selectCls} value={row.rotatingRing}
-                      onChange={(e) => onChange(i, { rotatingRing: e.target.value as DraftComponent['rotatingRing'] })}>
-                      <option value="">inner (default)</option>
-                      <option value="inner">inner</option>
-                      <option value="outer">outer</option>
-                    </select>
-                  )}
-                </TableCell>
-                <TableCell className="border-l border-border text-right">
+                <TableCell className="whitespace-nowrap border-l border-border px-1.5 text-right text-xs">
                   <Num value={c?.ratio} />
                   {c?.backwards ? <span className="ml-1 text-xs text-muted-foreground" title="Turns opposite to the crank">↺</span> : null}
                 </TableCell>
-                <TableCell className="text-right"><Num value={c?.beltSpeedMs} digits={2} /></TableCell>
-                <TableCell className="text-right"><Num value={c?.orders.shaft} /></TableCell>
-                <TableCell className="text-right"><Num value={c?.orders.ftf} approximate={c?.approximate} /></TableCell>
-                <TableCell className="text-right"><Num value={c?.orders.bpfo} approximate={c?.approximate} /></TableCell>
-                <TableCell className="text-right"><Num value={c?.orders.bpfi} approximate={c?.approximate} /></TableCell>
-                <TableCell className="text-right"><Num value={c?.orders.ball} approximate={c?.approximate} /></TableCell>
-                <TableCell className="text-right"><Num value={c?.beltPassOrder} digits={4} /></TableCell>
+                <TableCell className="px-1.5 text-right text-xs"><Num value={c?.beltSpeedMs} digits={2} /></TableCell>
+                <TableCell className="px-1.5 text-right text-xs"><Num value={c?.orders.ftf} approximate={c?.approximate} /></TableCell>
+                <TableCell className="px-1.5 text-right text-xs"><Num value={c?.orders.bpfo} approximate={c?.approximate} /></TableCell>
+                <TableCell className="px-1.5 text-right text-xs"><Num value={c?.orders.bpfi} approximate={c?.approximate} /></TableCell>
+                <TableCell className="px-1.5 text-right text-xs"><Num value={c?.orders.ball} approximate={c?.approximate} /></TableCell>
+                <TableCell className="px-1.5 text-right text-xs"><Num value={c?.beltPassOrder} digits={4} /></TableCell>
                 {readOnly ? null : (
                   <TableCell>
-                    <Button variant="ghost" size="sm" aria-label={`Remove ${row.name || `row ${i + 1}`}`} onClick={() => onRemove(i)}>✕</Button>
+                    <Button variant="ghost" size="sm" className="h-7 w-7 px-0" aria-label={`Remove ${row.name || `row ${i + 1}`}`} onClick={() => onRemove(i)}>✕</Button>
                   </TableCell>
                 )}
               </TableRow>
               {expanded && !crank ? (
                 <TableRow className="bg-muted/30 hover:bg-muted/30">
-                  <TableCell colSpan={readOnly ? 16 : 17}>
+                  <TableCell colSpan={readOnly ? 13 : 14}>
                     <BearingDetails row={row} index={i} errors={errors} readOnly={readOnly} onChange={(patch) => onChange(i, patch)} />
                   </TableCell>
                 </TableRow>

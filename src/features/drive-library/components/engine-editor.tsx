@@ -5,6 +5,7 @@ import type { EngineComputedDto, EngineDetailDto } from '../../../../shared/sche
 import { Button } from '../../../components/ui/button';
 import { Card, CardContent, CardDescription, CardHeader, CardTitle } from '../../../components/ui/card';
 import { ApiError } from '../../../lib/api-client';
+import { cn } from '../../../lib/cn';
 import { useCreateEngine, useUpdateEngine } from '../api/use-engine-mutations';
 import {
   checkDraft, documentToDraft, draftToDocument, emptyBelt, emptyComponent, errorsFromDetails, newEngineDraft,
@@ -106,7 +107,7 @@ export function EngineEditor({ engine, shopTable, readOnly, onSaved }: EngineEdi
   const crank = draft.components.find((c) => c.kind === 'crankshaft')?.name ?? '';
   const firstBelt = draft.belts[0]?.name ?? '';
   return (
-    <div className="grid gap-6">
+    <div className="grid grid-cols-1 gap-6">
       <Card>
         <CardContent className="pt-5">
           <EngineFields draft={draft} errors={errors} readOnly={readOnly} onChange={(patch) => edit({ ...draft, ...patch })} />
@@ -144,7 +145,7 @@ export function EngineEditor({ engine, shopTable, readOnly, onSaved }: EngineEdi
         </CardContent>
       </Card>
       {readOnly ? null : (
-        <div className="sticky bottom-0 z-10 -mx-1 flex flex-wrap items-center justify-end gap-3 border-t border-border bg-background/95 px-1 py-3 backdrop-blur">
+        <div className={cn('flex flex-wrap items-center justify-end gap-3 px-1', dirty && 'sticky bottom-0 z-10 -mx-1 border-t border-border bg-background/95 py-3 backdrop-blur')}>
           {formError ? <p role="alert" className="mr-auto text-sm text-destructive">{formError}</p> : dirty ? <p className="mr-auto text-sm text-muted-foreground">Unsaved changes</p> : null}
           <Button variant="outline" onClick={discard} disabled={!dirty}>Discard changes</Button>
           <Button onClick={save} pending={create.isPending || update.isPending} disabled={!dirty && Boolean(engine)}>{engine ? 'Save engine' : 'Create engine'}</Button>

@@ -24,6 +24,8 @@ export interface SketchPulley {
 export interface SketchBelt {
   name: string;
   index: number;
+  /** Centre of the circle the pulleys were placed on (labels go outwards from it). */
+  centre: { x: number; y: number };
   path: string;
   pulleys: SketchPulley[];
 }
@@ -93,6 +95,7 @@ export function layoutDrive(doc: Pick<DriveDocument, 'belts' | 'components'>): S
   const centres = new Map<string, Point>();
   const belts: SketchBelt[] = [];
   let sideStep = 0;
+  let firstCentre: Point | null = null;
   const firstDriver = doc.belts[0] ? key(doc.belts[0].driver) : '';
   doc.belts.forEach((belt, index) => {
     const riders = doc.components.filter((c) => c.belt !== undefined && key(c.belt) === key(belt.name));
@@ -104,15 +107,27 @@ export function layoutDrive(doc: Pick<DriveDocument, 'belts' | 'components'>): S
     const maxD = Math.max(...members.map((m) => m.d));
     const radius = Math.max((1.5 * sumD) / (2 * Math.PI), maxD * 1.15, 110);
     const driverAt = centres.get(key(driverName)) ?? { x: 0, y: 0 };
-    // The first belt's loop sits above its driver; each further belt beside its driver, alternating sides.
+    // The first belt's loop sits above its driver. Each further loop goes outwards from the first
+    // loop's centre through its driver (straight below the crank for a second groove, then to either
+    // side; straight out for a belt driven by a driven part), so the loops do not overlap.
     let centre: Point;
-    if (index === 0 || (key(belt.driver) !== firstDriver && !centres.has(key(driverName)))) {
+    if (!firstCentre) {
       centre = { x: driverAt.x, y: driverAt.y - radius };
+      firstCentre = centre;
     } else {
-      sideStep += 1;
-      const side = sideStep % 2 === 1 ? 1 : -1;
-      const away = driverAt.x === 0 ? side : Math.sign(driverAt.x);
-      centre = { x: driverAt.x + away * radius * 1.05, y: driverAt.y - radius * 0.35 };
+      const dx = driverAt.x - firstCentre.x;
+      const dy = driverAt.y - firstCentre.y;
+      const len = Math.hypot(dx, dy) || 1;
+      let ux = dx / len;
+      let uy = dy / len;
+      if (key(driverName) === firstDriver) {
+        // Straight below the crank first, then to either side.
+        const turn = ([0, 60, -60][sideStep % 3] * Math.PI) / 180;
+        sideStep += 1;
+        [ux, uy] = [ux * Math.cos(turn) - uy * Math.sin(turn), ux * Math.sin(turn) + uy * Math.cos(turn)];
+      }
+      const reach = radius + (members[0].d / 2) * 0.2;
+      centre = { x: driverAt.x + ux * reach, y: driverAt.y + uy * reach };
     }
     const base = Math.atan2(driverAt.y - centre.y, driverAt.x - centre.x);
     const pulleys: SketchPulley[] = members.map((m, i) => {
@@ -126,10 +141,11 @@ export function layoutDrive(doc: Pick<DriveDocument, 'belts' | 'components'>): S
     });
     if (!centres.has(key(driverName))) centres.set(key(driverName), driverAt);
     // Traverse in decreasing screen angle = the loop's positive (left-interior) sense for y-down coordinates.
-    belts.push({ name: belt.name, index, path: beltPath(pulleys.slice().reverse()), pulleys });
+    belts.push({ name: belt.name, index, centre, path: beltPath(pulleys.slice().reverse()), pulleys });
   });
   const all = belts.flatMap((b) => b.pulleys);
-  const pad = 40;
+  // Room for the labels written outwards from each loop.
+  const pad = 150;
   const minX = Math.min(0, ...all.map((p) => p.x - p.r)) - pad;
   const maxX = Math.max(0, ...all.map((p) => p.x + p.r)) + pad;
   const minY = Math.min(0, ...all.map((p) => p.y - p.r)) - pad;

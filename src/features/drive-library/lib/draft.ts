@@ -124,10 +124,11 @@ export function draftToDocument(draft: EngineDraft): { doc: DriveDocument & { no
       const at = `components[${i}]`;
       const out: ComponentSpec = { name: c.name, kind: c.kind };
       if (c.belt) out.belt = c.belt;
-      const pulleyMm = num(c.pulleyMm, `${at}.pulleyMm`);
+      // The table shows one of the two: a pulley for a belt-driven part, a fixed ratio otherwise.
+      const pulleyMm = c.belt ? num(c.pulleyMm, `${at}.pulleyMm`) : undefined;
       if (pulleyMm !== undefined) out.pulleyMm = pulleyMm;
       if (c.backside) out.backside = true;
-      const fixedRatio = num(c.fixedRatio, `${at}.fixedRatio`);
+      const fixedRatio = c.belt ? undefined : num(c.fixedRatio, `${at}.fixedRatio`);
       if (fixedRatio !== undefined) out.fixedRatio = fixedRatio;
       if (c.overrunning) out.overrunning = true;
       const b: BearingSpec = {};

@@ -43,6 +43,10 @@ describe('belt layout', () => {
     const ac = v6.belts[1];
     // The second groove sits on the crank's centre, with its own diameter.
     expect(ac.pulleys[0]).toMatchObject({ component: 'Crankshaft', x: 0, y: 0, r: 75 });
+    // Its other pulleys stay clear of the first belt's pulleys.
+    for (const p of ac.pulleys.slice(1)) {
+      for (const q of v6.belts[0].pulleys) expect(Math.hypot(p.x - q.x, p.y - q.y), `${p.component} vs ${q.component}`).toBeGreaterThan(p.r + q.r);
+    }
     expect(layoutDrive(DEMO_DIESEL_I4).unbelted).toEqual(['Vacuum pump']);
   });
 
