@@ -242,6 +242,17 @@ describe('engines API', () => {
     expect(second.body.error.details).toEqual([expect.objectContaining({ line: 5, field: 'pulleyMm', path: 'components[3].pulleyMm' })]);
   });
 
+  it("goes with its shop: deleting a shop (DEMO=off removes the demo shop this way) removes its engines' rows", async () => {
+    const doomed = await createTestShop();
+    const admin = await t.signIn(doomed.users.admin.email, doomed.users.admin.password);
+    const res = await admin.post('/api/engines', named(DEMO_V6));
+    expect(res.status).toBe(201);
+    await doomed.shop.destroy();
+    expect(await Engine.count({ where: { shopId: doomed.shop.id } })).toBe(0);
+    expect(await DriveComponent.count({ where: { shopId: doomed.shop.id } })).toBe(0);
+    expect(await Belt.count({ where: { shopId: doomed.shop.id } })).toBe(0);
+  });
+
   it('refuses a JSON import with every problem named by path', async () => {
     const res = await lead.post('/api/engines/import.json', { name: '', cylinders: 4, firingOrder: [1, 3, 4, 2], belts: [], components: [] });
     expect(res.status).toBe(400);
