@@ -1,4 +1,4 @@
-import { cleanup } from '@testing-library/react';
+import { cleanup, configure } from '@testing-library/react';
 import { afterAll, afterEach, beforeAll, beforeEach, vi, type MockInstance } from 'vitest';
 import { dismissToast } from '../../src/components/ui/toast';
 import { resetCsrfToken } from '../../src/lib/api-client';
@@ -6,6 +6,9 @@ import { server } from '../src/helpers/msw-server';
 
 // Client tests (jsdom): the network is MSW and any request without a handler fails the test;
 // an unexpected console.error fails the test too (React warnings, act() misuse, failed renders).
+
+// The machine running the suite may be busy: give findBy*/waitFor more than the 1 s default.
+configure({ asyncUtilTimeout: 5000 });
 
 beforeAll(() => {
   server.listen({ onUnhandledRequest: 'error' });

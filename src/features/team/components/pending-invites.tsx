@@ -21,7 +21,9 @@ export function PendingInvites({ now = new Date() }: { now?: Date }) {
   const pending = data.items.filter((invite) => invite.acceptedAt === null);
 
   if (pending.length === 0) {
-    return <EmptyState title="No open invites">Invites you send appear here until they are accepted or expire.</EmptyState>;
+    return (
+      <EmptyState title="No open invites" className="mx-5 mb-3">Invites you send appear here until they are accepted or expire.</EmptyState>
+    );
   }
   return (
     <>

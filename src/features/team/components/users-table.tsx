@@ -41,7 +41,9 @@ export function UsersTable({ currentUserId }: { currentUserId: number }) {
   };
 
   if (data.items.length === 0) {
-    return <EmptyState title="No users yet">Invite the people of your shop with the form on this page.</EmptyState>;
+    return (
+      <EmptyState title="No users yet" className="mx-5 mb-3">Invite the people of your shop with the form on this page.</EmptyState>
+    );
   }
   return (
     <>
