@@ -1,12 +1,8 @@
-// Seeds a shop's Drive library: the published bearing rows (every shop, at creation) and the
-// three invented demo engines (the demo shop only).
-import type { Transaction } from 'sequelize';
+// Seeds the demo shop's Drive library with the three invented demo engines. (Every shop's published
+// bearing rows are seeded by services/bearings.ts seedPublishedBearings, called from createShop.)
 import { Engine } from '../../models/engine';
-import { seedPublishedBearings } from '../../services/bearings';
 import { createEngine } from '../../services/engines';
 import { DEMO_ENGINE_NOTE, DEMO_ENGINES } from './demo-engines';
-
-export { seedPublishedBearings };
 
 /**
  * Adds the demo engines to a shop unless it already has engines of those names. Each is stored
@@ -22,9 +18,4 @@ export async function seedDemoEngines(shopId: number): Promise<number> {
     added += 1;
   }
   return added;
-}
-
-/** Everything a new shop's Drive library starts with (for shop-creation code holding a transaction). */
-export async function seedNewShopDriveLibrary(shopId: number, transaction?: Transaction): Promise<void> {
-  await seedPublishedBearings(shopId, transaction);
 }
