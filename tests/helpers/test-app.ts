@@ -7,7 +7,7 @@ import { inject } from 'vitest';
 import { createApp } from '../../server/app';
 import { createSequelize } from '../../server/db/sequelize';
 import { parseEnv, type Env } from '../../server/env';
-import { createLogger, silentLogger } from '../../server/logger';
+import { createLogger, silentLogger, type Logger } from '../../server/logger';
 import { startMailFake, type MailFake } from '../../server/mail/fake-smtp';
 import { createSmtpMailer, type Mailer } from '../../server/mail/mailer';
 import { MailMessage } from '../../server/models';
@@ -82,13 +82,13 @@ async function releaseSequelize(): Promise<void> {
 }
 
 /** Creates the app on the test database (from the global set-up) with a mail fake on a free port. */
-export async function createTestApp(overrides: Record<string, string> = {}, options: { mailer?: Mailer } = {}): Promise<TestApp> {
+export async function createTestApp(overrides: Record<string, string> = {}, options: { mailer?: Mailer; logger?: Logger } = {}): Promise<TestApp> {
   const env = testEnv(overrides);
   const sequelize = await sharedSequelize();
   const mailFake = await startMailFake(0, silentLogger);
   const mailer = options.mailer ?? createSmtpMailer(mailFake.url, env.MAIL_FROM);
   // Unexpected 500s are logged (to stderr) so a failing test shows why; TEST_LOG=debug shows more.
-  const logger = createLogger((process.env.TEST_LOG as 'debug' | undefined) ?? 'error', false);
+  const logger = options.logger ?? createLogger((process.env.TEST_LOG as 'debug' | undefined) ?? 'error', false);
   const app = createApp({ sequelize, env, mailer, logger, sessionSecret: 'test-secret-test-secret-test-secret-0123' });
   const agent = async () => {
     const a = new ApiAgent(app);

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Invite, User } from '../../../server/models';
 import { hashToken } from '../../../server/auth/tokens';
+import { silentLogger } from '../../../server/logger';
 import { createTestApp, linkToken, waitForMail, type ApiAgent, type TestApp } from '../../helpers/test-app';
 import { createInviteRow, createTestShop, uniq, type TestShop } from '../../helpers/factories';
 
@@ -96,7 +97,8 @@ describe('invitations', () => {
   });
 
   it('writes no invitation when the e-mail cannot be sent (502 mail_failed)', async () => {
-    const broken = await createTestApp({}, { mailer: { send: () => Promise.reject(new Error('SMTP down')), close: () => {} } });
+    // The failure is expected here, so its error log is silenced.
+    const broken = await createTestApp({}, { mailer: { send: () => Promise.reject(new Error('SMTP down')), close: () => {} }, logger: silentLogger });
     try {
       const brokenAdmin = await broken.signIn(shop.users.admin.email, shop.users.admin.password);
       const email = `unlucky.${uniq()}@example.test`;
