@@ -24,16 +24,16 @@ const FLAGS = ['--drive', 'tests/fixtures/drives/fixture-i4-petrol.json', '--ref
 const median = (v: number[]) => { const s = [...v].sort((a, b) => a - b); const m = s.length >> 1; return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2; };
 
 /** Runs a command under /usr/bin/time: wall seconds, peak RSS (MB) and stdout. */
-function timed(cmd: string, args: string[]): { wallS: number; peakMb: number; stdout: string } {
+function timed(cmd: string, args: string[]): { wallS: number; cpuS: number; peakMb: number; stdout: string } {
   const useTime = existsSync('/usr/bin/time');
   const t0 = performance.now();
   const p = useTime
-    ? spawnSync('/usr/bin/time', ['-f', '%M', cmd, ...args], { encoding: 'utf8', maxBuffer: 64 << 20 })
+    ? spawnSync('/usr/bin/time', ['-f', '%M %U %S', cmd, ...args], { encoding: 'utf8', maxBuffer: 64 << 20 })
     : spawnSync(cmd, args, { encoding: 'utf8', maxBuffer: 64 << 20 });
   const wallS = (performance.now() - t0) / 1000;
   if (p.status !== 0) throw new Error(`${cmd} ${args.join(' ')} failed: ${p.stderr}`);
-  const kb = useTime ? Number((p.stderr.trim().split('\n').pop() ?? '').trim()) : NaN;
-  return { wallS, peakMb: kb / 1024, stdout: p.stdout };
+  const [kb, user, sys] = useTime ? (p.stderr.trim().split('\n').pop() ?? '').trim().split(' ').map(Number) : [NaN, NaN, NaN];
+  return { wallS, cpuS: user + sys, peakMb: kb / 1024, stdout: p.stdout };
 }
 
 function main() {
@@ -41,7 +41,7 @@ function main() {
   const drive = JSON.parse(readFileSync('tests/fixtures/drives/fixture-i4-petrol.json', 'utf8'));
   const dir = mkdtempSync(join(tmpdir(), 'cw-bench-'));
   const rows: string[] = [];
-  const results: { c: Case; stages: Record<string, number>; npmWall: number; nodeWall: number; peakMb: number; samples: number }[] = [];
+  const results: { c: Case; stages: Record<string, number>; npmWall: number; nodeWall: number; nodeCpu: number; peakMb: number; samples: number }[] = [];
   const loadBefore = loadavg()[0];
   try {
     for (const c of CASES) {
@@ -50,10 +50,12 @@ function main() {
       writeFileSync(file, encodeWav(g.channels, c.sampleRateHz, 'pcm16'));
       const stageRuns: Record<string, number[]> = Object.fromEntries(STAGES.map((s) => [s, []]));
       const nodeWalls: number[] = [];
+      const nodeCpus: number[] = [];
       const peaks: number[] = [];
       for (let r = 0; r < c.runs; r++) {
         const run = timed('node', ['dist/node/cli/analyze.js', file, ...FLAGS]);
         nodeWalls.push(run.wallS);
+        nodeCpus.push(run.cpuS);
         peaks.push(run.peakMb);
         const t = JSON.parse(run.stdout).timingsMs as Record<string, number>;
         for (const s of STAGES) stageRuns[s].push(t[s]);
@@ -61,16 +63,16 @@ function main() {
       const npmWalls: number[] = [];
       for (let r = 0; r < c.runs; r++) npmWalls.push(timed('npm', ['run', '--silent', 'analyze', '--', file, ...FLAGS]).wallS);
       const stages = Object.fromEntries(STAGES.map((s) => [s, median(stageRuns[s])]));
-      results.push({ c, stages, npmWall: median(npmWalls), nodeWall: median(nodeWalls), peakMb: Math.max(...peaks), samples: c.durationS * c.sampleRateHz });
+      results.push({ c, stages, npmWall: median(npmWalls), nodeWall: median(nodeWalls), nodeCpu: median(nodeCpus), peakMb: Math.max(...peaks), samples: c.durationS * c.sampleRateHz });
       process.stdout.write(`${c.name}: total ${stages.total.toFixed(0)} ms, npm run analyze ${median(npmWalls).toFixed(2)} s\n`);
     }
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }
-  const header = `| capture | ${STAGES.join(' | ')} | analyze (npm run) | analyze (node) | peak memory |`;
-  rows.push(header, `|${'---|'.repeat(STAGES.length + 4)}`);
+  const header = `| capture | ${STAGES.join(' | ')} | analyze (npm run) | analyze (node) | analyze CPU | peak memory |`;
+  rows.push(header, `|${'---|'.repeat(STAGES.length + 5)}`);
   for (const r of results) {
-    rows.push(`| ${r.c.name} | ${STAGES.map((s) => r.stages[s].toFixed(0)).join(' | ')} | ${r.npmWall.toFixed(2)} s | ${r.nodeWall.toFixed(2)} s | ${r.peakMb.toFixed(0)} MB |`);
+    rows.push(`| ${r.c.name} | ${STAGES.map((s) => r.stages[s].toFixed(0)).join(' | ')} | ${r.npmWall.toFixed(2)} s | ${r.nodeWall.toFixed(2)} s | ${r.nodeCpu.toFixed(2)} s | ${r.peakMb.toFixed(0)} MB |`);
   }
   const [r10, r60] = results;
   const nlogn = (n: number) => n * Math.log2(n);
@@ -84,8 +86,9 @@ Measured by \`npm run bench\` (scripts/bench.ts) on ${new Date().toISOString().s
 captures of the fixture I4 engine (cylinder-1 reference, alternator outer-race fault), analysed with
 \`analyze --json --ref-kind cyl1 --cylinders 4 --firing-order 1-3-4-2\`. Stage columns are the
 pipeline's own \`timingsMs\` in milliseconds (single thread, one fresh process per run, median of
-${CASES.map((c) => c.runs).join('/')} runs); "analyze" columns are whole-process wall clock (median); peak memory is the
-largest resident set of any run (\`/usr/bin/time\`).
+${CASES.map((c) => c.runs).join('/')} runs); "analyze" columns are whole-process wall clock (median), "analyze CPU" the
+process's user + system CPU seconds (median; the better figure when other work shares the cores);
+peak memory is the largest resident set of any run (\`/usr/bin/time\`).
 
 Machine: ${cpus().length} × ${cpus()[0]?.model ?? 'CPU'}, Node ${process.version}; 1-minute load average
 ${loadBefore.toFixed(1)} before and ${loadAfter.toFixed(1)} after the run (other work shared the machine, so wall

@@ -9,8 +9,6 @@ import { toAnalyzeJson } from '../../shared/analysis/analyze-json';
 import { resolveSettings } from '../../shared/analysis/resolve-settings';
 import { type AnalysisResult, type RankingEntry, type RankingInput } from '../../shared/analysis/types';
 import { type DriveDocument } from '../../shared/drive/types';
-import { DriveDocumentError, parseDriveDocument } from '../../shared/schemas/drive';
-import { rankCapture } from '../../shared/ranking/rank-capture';
 import { FLAG_OF_FIELD, parseAnalyzeArgs, UsageError } from './analyze-args';
 import { formatSummary } from './format-summary';
 
@@ -28,7 +26,9 @@ async function main(argv: string[]): Promise<number> {
   const t0 = performance.now();
   const capture = await parseCaptureStream(createReadStream(args.capture, { highWaterMark: 1 << 20 }), { name: basename(args.capture), timeUnit: settings.timeUnit });
   const readMs = performance.now() - t0;
-  const rank = drive ? (input: RankingInput): RankingEntry[] => rankCapture(drive!, input) : undefined;
+  // The ranking and the drive schema load only when a drive document is given (startup time counts).
+  const rankCapture = drive ? (await import('../../shared/ranking/rank-capture')).rankCapture : null;
+  const rank = drive && rankCapture ? (input: RankingInput): RankingEntry[] => rankCapture(drive!, input) : undefined;
   const result: AnalysisResult = runPipeline(capture, settings, { drive: drive ?? undefined, rank, notes: capture.notes, readMs });
   if (args.json) process.stdout.write(`${JSON.stringify(toAnalyzeJson(result))}\n`);
   else process.stdout.write(formatSummary(result, basename(args.capture)));
@@ -36,6 +36,7 @@ async function main(argv: string[]): Promise<number> {
 }
 
 async function loadDrive(path: string): Promise<DriveDocument> {
+  const { DriveDocumentError, parseDriveDocument } = await import('../../shared/schemas/drive');
   const text = await readFile(path, 'utf8');
   let json: unknown;
   try { json = JSON.parse(text); } catch (e) {
