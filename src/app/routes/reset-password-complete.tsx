@@ -11,6 +11,7 @@ export function ResetPasswordCompleteRoute() {
     <Card>
       <CardHeader>
         <CardTitle>Choose a new password</CardTitle>
+          <title>Choose a new password · Crankwise</title>
         <CardDescription>After this, sign in with the new password.</CardDescription>
       </CardHeader>
       <CardContent>

@@ -9,6 +9,7 @@ export function ResetPasswordRoute() {
     <Card>
       <CardHeader>
         <CardTitle>Reset your password</CardTitle>
+          <title>Reset your password · Crankwise</title>
         <CardDescription>We e-mail you a link that sets a new password. It works once.</CardDescription>
       </CardHeader>
       <CardContent className="grid gap-4">

@@ -35,6 +35,7 @@ export function SetupRoute() {
     <Card>
       <CardHeader>
         <CardTitle>Set up your shop</CardTitle>
+          <title>Set up your shop · Crankwise</title>
         <CardDescription>
           Create your shop and its first admin. Everything your shop enters stays separate from the demo shop and any other shop.
         </CardDescription>

@@ -43,6 +43,7 @@ export function SignInRoute() {
       <Card>
         <CardHeader>
           <CardTitle>Sign in</CardTitle>
+          <title>Sign in · Crankwise</title>
           <CardDescription>Use the e-mail address your shop's admin invited.</CardDescription>
         </CardHeader>
         <CardContent>

@@ -19,6 +19,7 @@ export function SignOutRoute() {
     <Card>
       <CardHeader>
         <CardTitle>Sign out</CardTitle>
+          <title>Sign out · Crankwise</title>
         <CardDescription>End your session on this computer. Unsaved form entries are lost.</CardDescription>
       </CardHeader>
       <CardContent>

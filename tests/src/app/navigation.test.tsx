@@ -1,4 +1,4 @@
-import { screen, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { ROLES } from '../../../shared/auth/roles';
 import { makeUser } from '../helpers/factories';
@@ -15,6 +15,8 @@ describe('app navigation', () => {
   it('shows Team, Outbox and Shop setup to an admin', async () => {
     renderApp('/cases', { user: makeUser({ role: 'admin' }) });
     expect(await navLinks()).toEqual(['Cases', 'Drive library', 'Bearings', 'Capture planner', 'Team', 'Outbox', 'Shop setup']);
+    // The page's title names the page (React hoists <title> into the head).
+    await waitFor(() => expect(document.title).toBe('Cases · Crankwise'));
   });
 
   it.each(ROLES.filter((role) => role !== 'admin'))('shows only the workbench sections to a %s', async (role) => {
