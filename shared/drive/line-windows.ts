@@ -41,8 +41,8 @@ const BELT_PASS: RelativeWindow = { below: -0.02, above: 0.005 };
 
 /** Creep of friction belts, per stage: 0.5–1 % normal (ISO 5292 via REFERENCES.md §5), up to 3 % worn [practice]. */
 const CREEP_RANGE: [number, number] = [0, 0.03];
-/** Cage lag of rolling elements: about 1–2 % (REFERENCES.md §4, from memory); half a percent at least under load. */
-const CAGE_LAG_RANGE: [number, number] = [0.005, 0.02];
+/** Cage lag of rolling elements: about 1–2 % (REFERENCES.md §4, from memory), near 0 when lightly loaded. */
+const CAGE_LAG_RANGE: [number, number] = [0, 0.02];
 
 /**
  * The relative window of a line of the given role. `outerRingTurns` selects the idler's wider
@@ -71,7 +71,7 @@ export function relativeWindow(role: LineRole, regime: DriveRegime, outerRingTur
  * The range of relative deviations from nominal that the kinematics make likely for a line (the
  * core of its window, where a reading is fully plausible): belt creep 0–3 % in all (none for
  * fixed ratios, up to 10 % for loose parts, or the known slip), and for bearing lines the cage lag
- * of 0.5–2 %, which lowers the fixed race, cage and ball lines by the lag and raises the turning
+ * of 0–2 %, which lowers the fixed race, cage and ball lines by the lag and raises the turning
  * race by the lag × `turningShare` (the other race's factor over this one's: BPFO/BPFI for an inner
  * ring, BPFI/BPFO for an outer ring; REFERENCES.md §1, §4). Default share 0.6 (inner), 1.6 (outer).
  */
