@@ -42,6 +42,8 @@ export interface RunningDatabase {
   dropDatabase: (database: string) => Promise<void>;
   /** Stops the server whoever started it (SIGTERM to the pid in its pid file; waits up to 30 s). */
   stopServer: () => Promise<void>;
+  /** Leaves a server this call started running for others, without keeping this process alive. */
+  detach: () => void;
 }
 
 const SERVER_CANDIDATES = ['/usr/sbin/mariadbd', '/usr/bin/mariadbd', '/usr/local/bin/mariadbd', '/usr/local/sbin/mariadbd'];
@@ -305,6 +307,7 @@ export async function startDatabase(options: StartDatabaseOptions): Promise<Runn
         return rows.map((r) => r.Database).filter((d) => !SYSTEM.has(d));
       }),
     dropDatabase: (name) => withAdmin(async (conn) => void (await conn.query(`DROP DATABASE IF EXISTS \`${name.replace(/`/g, '')}\``))),
+    detach: () => owned?.unref(),
     stopServer: async () => {
       // Under the start-up lock, so a process starting meanwhile waits and then starts a fresh server.
       const release = await lockStartup(`${dataDir}.lock`);

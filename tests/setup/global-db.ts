@@ -98,6 +98,8 @@ async function finish({ db, names }: Prepared): Promise<void> {
     return match !== null && alive(Number(match[2]));
   });
   if (others.length === 0) await db.stopServer();
+  // Another run still uses it: leave it running without holding this process open.
+  else db.detach();
 }
 
 /** Starts (or reuses) the test database and provides this run's URLs to the project's tests. */
