@@ -13,5 +13,6 @@ export function resampleAtAngles(x: ArrayLike<number>, sampleRateHz: number, tim
   for (let k = 0; k < count; k++) theta[k] = startDeg + k * step;
   const pos = timeAt.atSorted(theta, theta);
   for (let k = 0; k < count; k++) pos[k] *= sampleRateHz;
-  return resampleCubic(x, pos, new Float64Array(count));
+  // Written in place over the positions (each output reads only its own position).
+  return resampleCubic(x, pos, pos);
 }

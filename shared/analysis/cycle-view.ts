@@ -37,6 +37,8 @@ export interface CycleInput {
   phaseResolved: boolean;
   ambiguityDeg: number;
   plans: FftPlanCache;
+  /** The synchronous average over 2·samplesPerRev when the caller has it already. */
+  average?: Float64Array;
 }
 
 const MAX_FRAME_DEG = 6;
@@ -57,7 +59,8 @@ const COHERENT_THRESHOLD = 4;
 export function cycleView(input: CycleInput): CycleResult {
   const { x, samplesPerRev, firingOrder } = input;
   const period = 2 * samplesPerRev;
-  const { average, cycles } = synchronousAverage(x, period);
+  const cycles = Math.floor(x.length / period);
+  const average = input.average?.length === period ? input.average : synchronousAverage(x, period).average;
   const perDeg = period / 720;
   const avgDeg = new Float64Array(720);
   for (let i = 0; i < period; i++) avgDeg[Math.min(719, Math.floor(i / perDeg))] += average[i] / perDeg;

@@ -147,7 +147,14 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
   const xHi = resampleAtAngles(xE, fsE, crank.timeAt, cycleStart, hiCount, hiSpr);
   const avg = synchronousAverage(xHi, 2 * hiSpr);
   const residualOk = avg.cycles >= 2;
-  const residual = residualOk ? subtractAverage(xHi, avg.average) : xHi;
+  // 6. The engine-cycle view reads the angle-domain pickup before the residual replaces it in place.
+  const t1 = clock();
+  const cycle = cycleView({
+    x: xHi, samplesPerRev: hiSpr, tdcOffsetDeg: settings.tdcOffsetDeg, firingOrder,
+    phaseResolved: reference.phaseResolved, ambiguityDeg: reference.ambiguityDeg, plans, average: avg.average,
+  });
+  t.cycle = clock() - t1;
+  const residual = residualOk ? subtractAverage(xHi, avg.average, xHi) : xHi;
   if (!residualOk) warnings.push({ code: 'no_cycle_average', message: 'fewer than two engine cycles: the envelope band was chosen without removing the engine cycle' });
   const given = settings.envelopeBand !== 'auto';
   let bands: { bandHz: [number, number]; score: number }[];
@@ -170,15 +177,7 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
     }, plans);
   }
   const envSpecs = envelopeSpectra(residual, hiSpr, rpbE, bands.map((b) => [b.bandHz[0] / meanShaftHz, b.bandHz[1] / meanShaftHz]), maxOrder, plans);
-  t.envelope = clock() - t0;
-
-  // 6. Engine-cycle view.
-  t0 = clock();
-  const cycle = cycleView({
-    x: xHi, samplesPerRev: hiSpr, tdcOffsetDeg: settings.tdcOffsetDeg, firingOrder,
-    phaseResolved: reference.phaseResolved, ambiguityDeg: reference.ambiguityDeg, plans,
-  });
-  t.cycle = clock() - t0;
+  t.envelope = clock() - t0 - t.cycle;
 
   // 7. Spectrogram.
   t0 = clock();
