@@ -14,6 +14,7 @@ export const COMPONENT_CSV_HEADERS = [
   'ftf', 'bpfo', 'bpfi', 'bsf', 'rotatingRing',
 ] as const;
 
+/** One header of the component table. */
 export type ComponentCsvHeader = (typeof COMPONENT_CSV_HEADERS)[number];
 
 /** Every component kind the drive document accepts (DESIGN.md "Domain model"). */

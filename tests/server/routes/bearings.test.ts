@@ -1,4 +1,6 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { QueryTypes, Sequelize } from 'sequelize';
+import { createMigrator } from '../../../server/db/migrator';
 import { BearingType, Shop } from '../../../server/models';
 import { createShop } from '../../../server/services/create-shop';
 import { seedPublishedBearings } from '../../../server/services/bearings';
@@ -54,6 +56,26 @@ describe('bearings API', () => {
     expect(rows.map((r) => r.designation).sort()).toEqual(['6203', '6205']);
     expect(rows.every((r) => r.source === 'published')).toBe(true);
     await Shop.destroy({ where: { id: fresh.id } });
+  });
+
+  it('gives shops that existed before the bearing_types migration the published rows too', async () => {
+    // A bare instance on the scratch database (the models stay bound to the shared test database).
+    const scratch = new Sequelize(inject('scratchDatabaseUrl'), { dialect: 'mariadb', logging: false, timezone: '+00:00' });
+    try {
+      const migrator = createMigrator(scratch);
+      await migrator.up();
+      await migrator.down({ to: '202612020400-create-bearing-types' });
+      await scratch.query("INSERT INTO shops (name, isDemo, createdAt, updatedAt) VALUES ('Older shop', 0, NOW(), NOW())");
+      await migrator.up();
+      const rows = await scratch.query<{ designation: string; source: string }>(
+        "SELECT b.designation, b.source FROM bearing_types b JOIN shops s ON s.id = b.shopId WHERE s.name = 'Older shop' ORDER BY b.designation",
+        { type: QueryTypes.SELECT },
+      );
+      expect(rows).toEqual([{ designation: '6203', source: 'published' }, { designation: '6205', source: 'published' }]);
+    } finally {
+      await scratch.query("DELETE FROM shops WHERE name = 'Older shop'").catch(() => undefined);
+      await scratch.close();
+    }
   });
 
   it('creates, edits and deletes a row', async () => {
