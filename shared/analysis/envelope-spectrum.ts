@@ -19,8 +19,6 @@ export function envelopeSpectra(x: Float64Array, samplesPerRev: number, revsPerB
   if (x.length < n) throw new RangeError(`envelope spectrum needs at least ${n} samples (one block), got ${x.length}`);
   const plan = plans.get(n);
   const w = createWindow('hann', n);
-  let wSum = 0;
-  for (let i = 0; i < n; i++) wSum += w[i];
   const hop = n / 2;
   const allBlocks = Math.floor((x.length - n) / hop) + 1;
   // With maxBlocks, evenly spaced blocks only (a quick look for choosing bands).
@@ -64,7 +62,6 @@ export function envelopeSpectra(x: Float64Array, samplesPerRev: number, revsPerB
       for (let k = 0; k < B.bins; k++) B.acc[k] += o[2 * k] * o[2 * k] + o[2 * k + 1] * o[2 * k + 1];
     }
   }
-  void wSum;
   return bands.map((B) => {
     const scale = 2 / (B.m * (B.wDecSum / B.m));
     const amp = new Float64Array(B.bins);

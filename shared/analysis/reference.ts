@@ -1,5 +1,4 @@
 import { type AnalysisSettings } from '../schemas/analysis-settings';
-import { median } from '../dsp/stats';
 import { AnalysisInputError } from './analysis-input-error';
 import { detectPulses, medianSpacing, type Polarity, pulseLevels } from './reference-edges';
 import { repairPulses } from './repair-pulses';
@@ -156,7 +155,7 @@ function medianSpacingOfMerged(a: number[], b: number[]): number {
   return medianSpacing(Float64Array.from([...a, ...b].sort((x, y) => x - y)));
 }
 
-/** Angle of the first sync edge at or after each cam edge, folded to [0, 720); the median wins. */
+/** Angle of the first sync edge at or after each cam edge, folded to [0, 720); the most frequent wins. */
 function camOrigin(cam: Float32Array, fs: number, s: AnalysisSettings, timesS: Float64Array, angles: Float64Array, syncDeg: number): number | null {
   const lv = pulseLevels(cam, fs);
   const pol: Polarity = lv.rising >= lv.falling ? 'rising' : 'falling';
@@ -179,6 +178,5 @@ function camOrigin(cam: Float32Array, fs: number, s: AnalysisSettings, timesS: F
   for (const o of origins) { const k = Math.round(o); counts.set(k, (counts.get(k) ?? 0) + 1); }
   let best = origins[0], bestN = 0;
   for (const [k, n] of counts) if (n > bestN) { best = k; bestN = n; }
-  void median;
   return best;
 }
