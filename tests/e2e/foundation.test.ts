@@ -4,13 +4,12 @@ import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { NAV_LABELS, navSectionsFor, type Role } from '../../shared/auth/roles';
 import { DEMO_USERS } from '../../server/services/demo-shop';
-import { startTestServer } from '../helpers/test-server';
+import { freePort, startTestServer } from '../helpers/test-server';
 
 // Browser test of the Foundation: the BUILT app (npm test builds first) served by the built server
 // against the e2e database with the demo shop, driven through Debian's Chromium.
 // Screenshots land in tests/e2e/screenshots/ (git-ignored) for a person to look at.
 
-const PORT = Number(process.env.E2E_PORT ?? 3200);
 const SCREENSHOTS = path.resolve('tests/e2e/screenshots');
 
 let browser: Browser;
@@ -20,7 +19,9 @@ let server: { baseUrl: string; stop: () => Promise<void> };
 
 beforeAll(async () => {
   mkdirSync(SCREENSHOTS, { recursive: true });
-  server = await startTestServer({ port: PORT });
+  // A free port unless one is given: several people's suites may run on one machine, and a fixed
+  // port would let this test talk to someone else's server.
+  server = await startTestServer({ port: process.env.E2E_PORT ? Number(process.env.E2E_PORT) : await freePort() });
   browser = await chromium.launch({
     executablePath: '/usr/bin/chromium',
     headless: true,
