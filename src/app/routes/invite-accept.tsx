@@ -1,5 +1,4 @@
-import type { QueryClient } from '@tanstack/react-query';
-import { useQuery } from '@tanstack/react-query';
+import { useQuery, type QueryClient } from '@tanstack/react-query';
 import { Link, useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { buttonVariants } from '../../components/ui/button';
 import { Card, CardContent, CardDescription, CardHeader, CardTitle } from '../../components/ui/card';
