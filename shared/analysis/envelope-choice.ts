@@ -7,11 +7,11 @@ import { envelopeSpectra } from './envelope-spectrum';
  * The automatic envelope band (DESIGN.md step 5) in two looks. Spectral kurtosis of the residual
  * (envelope-band.ts) proposes its best bands; a plain grid of bands twice the minimum width, in
  * steps of ¾ width (every resonance falls well inside one), adds the rest of the usable range,
- * because at a low SNR a fault's impacts barely move the kurtosis.
- * Every candidate then gets a quick envelope order spectrum over a few
- * evenly spaced blocks, scored by its lines: the sum of the SNRs (dB) of its three strongest
- * peaks, those on a 0.5-order multiple at half weight (the residual should hold none, so what is
- * left there is more likely the engine's ticks than a part — but a part can sit there). The best two or three distinct bands are kept, best first; their
+ * because at a low SNR a fault's impacts barely move the kurtosis. Every candidate then gets a
+ * quick envelope order spectrum over a few evenly spaced blocks, scored by its lines: the sum of
+ * the SNRs (dB) of its three strongest peaks, those on a 0.5-order multiple at half weight (the
+ * residual should hold none, so what is left there is more likely the engine's ticks than a part
+ * — but a part can sit there). The best two or three distinct bands are kept, best first; their
  * score is that sum.
  */
 export interface EnvelopeChoiceInput {
