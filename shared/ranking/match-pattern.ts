@@ -56,7 +56,7 @@ const SIDEBAND_WEIGHT = 0.2;
  * average (DESIGN.md step 5), which has removed most of them, so a comb line there counts more.
  */
 function combWeight(offCombFound: number, engineLinesRemoved: boolean): number {
-  const weights = engineLinesRemoved ? [0.5, 0.7, 0.9] : [0.2, 0.5, 0.8];
+  const weights = engineLinesRemoved ? [0.6, 0.8, 0.95] : [0.2, 0.5, 0.8];
   return weights[Math.min(2, offCombFound)];
 }
 
@@ -110,7 +110,7 @@ function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spe
       if (!(at > 0 && at <= top)) continue;
       const carrier = carriers.find((c) => c.h === sb.carrierHarmonic);
       sbPossible += 1;
-      sbExpected += carrier ? Math.max(0, Math.min(1, (carrier.found.snrDb - 8) / 12)) : 0;
+      sbExpected += carrier ? Math.max(0, Math.min(1, (carrier.found.snrDb - 10) / 14)) : 0;
     }
   }
   let sbTotal = 0;
@@ -123,11 +123,11 @@ function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spe
   }
   const sbFound = sbPossible > 0 ? Math.min(1, sbTotal / sbPossible) : 0;
   const expectation = sbPossible > 0 ? sbExpected / sbPossible : 0;
-  const sidebandFactor = sbPossible > 0 ? 0.85 + 0.15 * sbFound - 0.1 * expectation * (1 - sbFound) : 0.85;
-  // Plausibility of the fundamental's deviation from nominal: near 1 where the kinematics expect it
-  // (creep and cage lag; a touch higher at the middle of that range, which settles near-equal
-  // ratios by the less extreme slip), falling to 0.4 at the window's edges, so that a stray
-  // impulsive source or a near-equal ratio that needs an unlikely slip counts less.
+  const sidebandFactor = sbPossible > 0 ? 0.85 + 0.15 * sbFound - 0.25 * expectation * (1 - sbFound) : 0.85;
+  // Plausibility of the fundamental's deviation from nominal: 1 at the middle of the range the
+  // kinematics expect (creep and cage lag), 0.85 at its ends, falling to 0.4 at the window's
+  // edges, so that a stray impulsive source or a near-equal ratio that needs an extreme slip
+  // counts less.
   // Judge the fundamental the matched lines imply (least squares over harmonics), not the trial
   // value that found them, so a trial inside the window cannot vouch for lines outside it.
   const nominal = search.carriers.find((c) => c.harmonic === 1)?.nominalOrder ?? search.carriers[0].nominalOrder / search.carriers[0].harmonic;
@@ -140,9 +140,9 @@ function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spe
   const lo = likely[0] - slack;
   const hi = likely[1] + slack;
   let plausibility: number;
-  if (dev < lo) plausibility = 0.95 - 0.55 * Math.min(1, (lo - dev) / Math.max(1e-6, lo - below)) ** 2;
-  else if (dev > hi) plausibility = 0.95 - 0.55 * Math.min(1, (dev - hi) / Math.max(1e-6, above - hi)) ** 2;
-  else plausibility = 1 - 0.05 * ((dev - (likely[0] + likely[1]) / 2) / Math.max(1e-6, (hi - lo) / 2)) ** 2;
+  if (dev < lo) plausibility = 0.85 - 0.45 * Math.min(1, (lo - dev) / Math.max(1e-6, lo - below)) ** 2;
+  else if (dev > hi) plausibility = 0.85 - 0.45 * Math.min(1, (dev - hi) / Math.max(1e-6, above - hi)) ** 2;
+  else plausibility = 1 - 0.15 * ((dev - (likely[0] + likely[1]) / 2) / Math.max(1e-6, (hi - lo) / 2)) ** 2;
   const completeness = carrierPossible > 0 ? Math.min(1, carrierTotal / carrierPossible) * sidebandFactor : 0;
   return {
     total: completeness * plausibility,

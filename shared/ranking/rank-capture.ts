@@ -156,6 +156,34 @@ function markIndistinguishable(scored: Scored[], input: RankingInput): void {
 }
 
 /**
+ * Explaining away: when one pattern's fundamental is 2× or 3× another's, and the lower one's own
+ * 1× stands clear of the floor, the higher pattern is only reading the lower one's harmonics (an
+ * impact train at f has lines at 2f, 3f, … but nothing at f/2), so it counts less (×0.6).
+ */
+function explainAway(scored: Scored[], input: RankingInput): void {
+  const res = Math.max(input.orders.resolution, ...input.envelopes.map((b) => b.spectrum.resolution));
+  const firstLine = (s: Scored) => s.match.lines.find((l) => l.line.sideband === 0 && l.line.harmonic === 1);
+  // The lower pattern's own 1× must stand ≥ 10 dB above the floor off the engine comb, and about
+  // as strong as the higher pattern's lines (an engine line explains nothing).
+  const strong = scored.filter((s) => {
+    const one = firstLine(s);
+    return s.score >= 0.3 && one !== undefined && one.found.snrDb >= 10 && !one.onComb;
+  });
+  for (const high of scored) {
+    if (high.score <= 0 || high.match.spectrumIndex < 0) continue;
+    const highDb = Math.max(...high.match.lines.filter((l) => l.line.sideband === 0).map((l) => l.found.snrDb));
+    const lower = strong.find((low) => low !== high && low.match.spectrumIndex >= 0
+      && (low.fault === 'shaft') === (high.fault === 'shaft')
+      && firstLine(low)!.found.snrDb >= highDb - 3
+      && [2, 3].some((k) => Math.abs(high.match.fundamental - k * low.match.fundamental) <= Math.max(res, 0.003 * high.match.fundamental)));
+    if (!lower) continue;
+    high.score = Math.round(1000 * high.score * 0.6) / 1000;
+    high.entry.score = high.score;
+    high.entry.evidence += `; its lines are also harmonics of ${lower.entry.component}'s ${lower.fault.replace('_', ' ')} pattern at ${lower.match.fundamental.toFixed(2)}, which explains them better`;
+  }
+}
+
+/**
  * Ranks every (component, fault) of the drive and every belt for one capture. Returns one entry
  * each, sorted by score (0–1) descending, ties by component name then fault. Without envelope
  * spectra the bearing faults score 0. Throws RangeError when the input holds no order spectrum.
@@ -175,6 +203,7 @@ export function rankCapture(drive: DriveDocument, input: RankingInput, options: 
     const slip = cc.regime === 'fixed' ? null : estimateSlip(cc, input.orders);
     for (const fault of COMPONENT_FAULTS) scored.push(scoreOne(cc, fault, input, slip));
   }
+  explainAway(scored, input);
   markIndistinguishable(scored, input);
   return scored
     .map((s) => s.entry)

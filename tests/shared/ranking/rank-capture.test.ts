@@ -87,7 +87,8 @@ describe('rankCapture on synthetic spectra', () => {
     // Only the engine's own 0.5-order comb, strongly, in both spectra: nothing should look like a fault.
     const input = synthInput(engineComb(64, 4, 30), [engineComb(64, 4, 24)], { seed: 9 });
     const top = first(rankCapture(i4, input));
-    expect(top.score).toBeLessThan(0.35);
+    expect(top.score).toBeLessThan(0.45);
+    expect(top.evidence).toMatch(/on an engine order|on engine orders/);
   });
 
   it('judges engine-synchronous lines from the whole pattern', () => {
@@ -107,7 +108,7 @@ describe('rankCapture on synthetic spectra', () => {
     // of the residual after the 720° average, which has removed most engine lines, so not nothing).
     const onComb = synthInput(engineComb(64, 4, 26), [[8, 16, 24].map((order, i) => ({ order, snrDb: 20 - 2 * i }))], { seed: 4 });
     const altOnComb = rankCapture(i4, onComb).find((e) => e.component === 'Alternator' && e.fault === 'outer_race')!;
-    expect(altOnComb.score).toBeLessThan(0.6 * alt.score);
+    expect(altOnComb.score).toBeLessThan(0.7 * alt.score);
   });
 
   it('marks entries of a bearing known only by rule of thumb as approximate', () => {
