@@ -2,8 +2,9 @@
  * Matches one (part, fault) line pattern against a capture's spectra. A real fault puts its
  * harmonics at exact multiples of one measured fundamental (whatever the slip), so the search
  * tries each fundamental that a local maximum in any harmonic's window suggests and scores the
- * whole comb it implies: prominence of each harmonic, sidebands at the modulating order, less for
- * lines on the engine's 0.5-order comb unless the rest of the pattern stands off it.
+ * whole comb it implies: prominence of each harmonic over the floor, sidebands at the modulating
+ * order, less for lines on the engine's 0.5-order comb unless the rest of the pattern stands off
+ * it, and the plausibility of the slip the matched lines imply.
  */
 import type { OrderSpectrum } from '../analysis/types';
 import type { CandidateLine } from '../drive/types';
@@ -20,7 +21,11 @@ export interface PatternLine {
 
 /** The best reading of one pattern in one set of spectra. */
 export interface PatternMatch {
-  /** Evidence 0–1: the weighted line strengths found over those a complete pattern would show, times the plausibility of its slip. */
+  /**
+   * Evidence 0–1: the carriers' weighted strengths over those of a complete pattern, times the
+   * sideband factor (0.6–1; 0.85 for a fault kind without sidebands), times the plausibility of
+   * the slip the lines imply (0.4–1).
+   */
   total: number;
   /** Measured fundamental (the 1× of the fault's carrier) in orders. */
   fundamental: number;
