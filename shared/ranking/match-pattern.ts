@@ -46,7 +46,7 @@ export interface PatternSearch {
   /** Window of the modulating order (part shaft speed, or cage speed), for sidebands. */
   modulatorWindow?: [number, number];
   /** Relative window of the fundamental (below, above) and the deviations the kinematics make likely, for the plausibility of a reading. */
-  relative: { below: number; above: number; likely: [number, number] };
+  relative: { below: number; above: number; likely: [number, number]; preferCentre?: boolean };
   cyclesAveraged: number;
 }
 
@@ -130,7 +130,8 @@ function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spe
   const expectation = sbPossible > 0 ? sbExpected / sbPossible : 0;
   const sidebandFactor = sbPossible > 0 ? 0.85 + 0.15 * sbFound - 0.25 * expectation * (1 - sbFound) : 0.85;
   // Plausibility of the fundamental's deviation from nominal: 1 at the middle of the range the
-  // kinematics expect (creep and cage lag), 0.85 at its ends, falling to 0.4 at the window's
+  // kinematics expect (creep and cage lag), 0.85 at its ends (flat when the part's own shaft line
+  // has fixed its speed and only the cage lag is left), falling to 0.4 at the window's
   // edges, so that a stray impulsive source or a near-equal ratio that needs an extreme slip
   // counts less.
   // Judge the fundamental the matched lines imply (least squares over harmonics), not the trial
@@ -147,6 +148,7 @@ function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spe
   let plausibility: number;
   if (dev < lo) plausibility = 0.85 - 0.45 * Math.min(1, (lo - dev) / Math.max(1e-6, lo - below)) ** 2;
   else if (dev > hi) plausibility = 0.85 - 0.45 * Math.min(1, (dev - hi) / Math.max(1e-6, above - hi)) ** 2;
+  else if (search.relative.preferCentre === false) plausibility = 1;
   else plausibility = 1 - 0.15 * ((dev - (likely[0] + likely[1]) / 2) / Math.max(1e-6, (hi - lo) / 2)) ** 2;
   const completeness = carrierPossible > 0 ? Math.min(1, carrierTotal / carrierPossible) * sidebandFactor : 0;
   return {

@@ -45,10 +45,11 @@ function searchFor(cc: ComponentCandidates, fault: Fault, cyclesAveraged: number
   const f = cc.factors;
   const share = f && role === 'turning' ? (fault === 'inner_race' ? f.bpfo / f.bpfi : f.bpfi / f.bpfo) : undefined;
   const likely = likelyDeviation(role, cc.regime, outer, slip, cc.beltStages, share);
-  let relative = { ...relativeWindow(role, cc.regime, outer, slip, cc.beltStages), likely };
+  const preferCentre = slip === undefined;
+  let relative = { ...relativeWindow(role, cc.regime, outer, slip, cc.beltStages), likely, preferCentre };
   if (carriers[0]) {
     const [lo, hi] = carriers[0].window;
-    relative = { below: lo / carriers[0].nominalOrder - 1, above: hi / carriers[0].nominalOrder - 1, likely };
+    relative = { below: lo / carriers[0].nominalOrder - 1, above: hi / carriers[0].nominalOrder - 1, likely, preferCentre };
   }
   let modulatorWindow: [number, number] | undefined;
   if (sidebands.length > 0) {
