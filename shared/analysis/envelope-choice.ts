@@ -8,7 +8,7 @@ import { envelopeSpectra } from './envelope-spectrum';
  * (envelope-band.ts) proposes its best bands; a plain grid of bands twice the minimum width, in
  * steps of ¾ width (every resonance falls well inside one), adds the rest of the usable range,
  * because at a low SNR a fault's impacts barely move the kurtosis. Every candidate then gets a
- * quick envelope order spectrum over a few evenly spaced blocks, scored by its lines: the sum of
+ * quick envelope order spectrum over six evenly spaced blocks of 8 revolutions, scored by its lines: the sum of
  * the SNRs (dB) of its three strongest peaks, those on a 0.5-order multiple at half weight (the
  * residual should hold none, so what is left there is more likely the engine's ticks than a part
  * — but a part can sit there). The best two or three distinct bands are kept, best first; their
@@ -22,7 +22,9 @@ export interface EnvelopeChoiceInput {
   search: BandSearch;
 }
 
-const QUICK_BLOCKS = 3;
+const QUICK_BLOCKS = 6;
+/** Revolutions per block of the quick look (resolution 1/8 order is enough to see a line stand out). */
+const QUICK_REVS_PER_BLOCK = 8;
 const QUICK_MAX_ORDER = 50;
 
 /** Best envelope bands, best first. */
@@ -33,7 +35,7 @@ export function chooseEnvelopeBands(input: EnvelopeChoiceInput, plans: FftPlanCa
   const width = Math.min(2 * search.minWidthHz, search.hiHz - search.loHz);
   for (let lo = search.loHz; lo + width <= search.hiHz + 1e-9; lo += width * 0.75) grid.push({ bandHz: [lo, lo + width], score: 0 });
   const cands = [...sk, ...grid];
-  const spectra = envelopeSpectra(input.residual, input.samplesPerRev, input.revsPerBlock,
+  const spectra = envelopeSpectra(input.residual, input.samplesPerRev, Math.min(QUICK_REVS_PER_BLOCK, input.revsPerBlock),
     cands.map((c) => [c.bandHz[0] / input.meanShaftHz, c.bandHz[1] / input.meanShaftHz] as [number, number]),
     QUICK_MAX_ORDER, plans, QUICK_BLOCKS);
   const scored = cands.map((c, i) => {

@@ -35,3 +35,18 @@ describe('interpolated peaks and running-median floor', () => {
     expect(runningMedian(x, 9)[50]).toBe(1);
   });
 });
+
+describe('quantile (quickselect)', () => {
+  it('matches sorting on random data for several p', async () => {
+    const { quantile } = await import('../../../shared/dsp/stats');
+    const x = gaussian(10_001, 12);
+    const sorted = Float64Array.from(x).sort();
+    for (const p of [0, 0.1, 0.5, 0.73, 1]) {
+      const pos = p * (sorted.length - 1);
+      const i = Math.floor(pos);
+      const want = i + 1 < sorted.length ? sorted[i] * (1 - (pos - i)) + sorted[i + 1] * (pos - i) : sorted[i];
+      expect(quantile(x, p)).toBeCloseTo(want, 12);
+    }
+    expect(quantile([3, 1, 2, 2], 0.5)).toBe(2);
+  });
+});
