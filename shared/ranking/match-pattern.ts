@@ -8,7 +8,7 @@
  */
 import type { OrderSpectrum } from '../analysis/types';
 import type { CandidateLine } from '../drive/types';
-import { lineCycleGain, lineNear, lineStrength, localMaxima, onEngineComb, topOrder, type FoundLine } from './spectrum-lines';
+import { engineCombLevelDb, lineCycleGain, lineNear, lineStrength, localMaxima, onEngineComb, topOrder, type FoundLine } from './spectrum-lines';
 
 /** One line of a matched pattern, with what the scoring made of it. */
 export interface PatternLine {
@@ -54,18 +54,24 @@ const FOUND_DB = 6;
 const HARMONIC_WEIGHT = [1, 0.8, 0.6, 0.5];
 const SIDEBAND_WEIGHT = 0.2;
 
+/** Median SNR at the 0.5-order multiples below which a spectrum is taken to hold no engine comb. */
+const COMB_ABSENT_DB = 4;
+
 /**
  * Weight of a line on the engine's 0.5-order comb, judged from the whole pattern: more of its
  * harmonics off the comb make it likelier the part's own. In the raw order spectrum the engine's
  * lines are always there; the envelope spectra are taken from the residual after the 720°
- * average (DESIGN.md step 5), which has removed most of them, so a comb line there counts more.
+ * average (DESIGN.md step 5), which removes most of them, so a comb line there counts more; and
+ * where such a residual shows no comb at all (median SNR at the multiples under 4 dB), it counts
+ * fully. (The raw spectrum's comb fades at high orders, so its median says nothing there.)
  */
-function combWeight(offCombFound: number, engineLinesRemoved: boolean): number {
+function combWeight(offCombFound: number, engineLinesRemoved: boolean, combLevelDb: number): number {
+  if (engineLinesRemoved && combLevelDb < COMB_ABSENT_DB) return 1;
   const weights = engineLinesRemoved ? [0.6, 0.8, 0.95] : [0.2, 0.5, 0.8];
   return weights[Math.min(2, offCombFound)];
 }
 
-function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spectrumIndex: number, engineLinesRemoved: boolean): PatternMatch {
+function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spectrumIndex: number, engineLinesRemoved: boolean, combLevelDb: number): PatternMatch {
   const res = spectrum.resolution;
   const top = topOrder(spectrum);
   const carriers: { line: CandidateLine; found: FoundLine; h: number }[] = [];
@@ -92,7 +98,7 @@ function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spe
   const gain = (o: number) => lineCycleGain(o, search.cyclesAveraged);
   const isComb = (o: number) => onEngineComb(o, res) || gain(o) > 0.3;
   const offCombFound = carriers.filter((c) => c.found.snrDb >= FOUND_DB && !isComb(c.found.order)).length;
-  const cw = combWeight(offCombFound, engineLinesRemoved);
+  const cw = combWeight(offCombFound, engineLinesRemoved, combLevelDb);
   const lines: PatternLine[] = [];
   // Carriers: the weighted strengths found over those of every harmonic the spectrum holds.
   let carrierTotal = 0;
@@ -178,6 +184,7 @@ export function matchPattern(spectra: readonly OrderSpectrum[], search: PatternS
   let best = emptyMatch(search);
   spectra.forEach((spectrum, index) => {
     const res = spectrum.resolution;
+    const combLevelDb = engineCombLevelDb(spectrum);
     const tried: number[] = [];
     for (const line of search.carriers) {
       const [lo, hi] = line.window;
@@ -185,7 +192,7 @@ export function matchPattern(spectra: readonly OrderSpectrum[], search: PatternS
         const f = peak.order / line.harmonic;
         if (tried.some((t) => Math.abs(t - f) < 0.25 * res / line.harmonic)) continue;
         tried.push(f);
-        const m = evaluate(spectrum, f, search, index, engineLinesRemoved[index] ?? false);
+        const m = evaluate(spectrum, f, search, index, engineLinesRemoved[index] ?? false, combLevelDb);
         if (m.total > best.total) best = m;
       }
     }

@@ -93,3 +93,23 @@ export function lineCycleGain(order: number, cycles: number): number {
 export function lineStrength(snrDb: number): number {
   return snrDb <= 3 ? 0 : 1 - Math.exp(-(snrDb - 3) / 12);
 }
+
+/**
+ * How strongly the engine's own 0.5-order comb shows in a spectrum: the median SNR (dB) at the
+ * bins of 0.5, 1.0, 1.5, … (up to order 40). Near 0 dB the comb is absent (e.g. an envelope of
+ * the residual after the 720° average), so a line that happens to sit on a 0.5-order multiple
+ * there is not suspect; a few of the multiples carrying a fault's lines do not move the median.
+ */
+export function engineCombLevelDb(spectrum: OrderSpectrum): number {
+  const res = spectrum.resolution;
+  const top = Math.min(40, topOrder(spectrum));
+  const levels: number[] = [];
+  for (let order = 0.5; order <= top; order += 0.5) {
+    const k = Math.round(order / res);
+    const floor = spectrum.floor[k];
+    if (floor > 0) levels.push(20 * Math.log10(Math.max(spectrum.amplitude[k], 1e-300) / floor));
+  }
+  if (levels.length === 0) return 0;
+  levels.sort((a, b) => a - b);
+  return levels[Math.floor(levels.length / 2)];
+}
