@@ -1,5 +1,6 @@
 import type { Sequelize } from 'sequelize';
 import { Shop } from '../models';
+import { Engine } from '../models/engine';
 import type { Role } from '../../shared/auth/roles';
 import { createShop } from './create-shop';
 import { seedDemoEngines } from '../db/seeders/drive-library';
@@ -20,7 +21,13 @@ export const DEMO_USERS: ReadonlyArray<{ name: string; email: string; password: 
  * @returns true when it was created now (npm start then prints the passwords)
  */
 export async function seedDemoShop(sequelize: Sequelize, bcryptRounds: number): Promise<boolean> {
-  if ((await Shop.count({ where: { isDemo: true } })) > 0) return false;
+  const existing = await Shop.findOne({ where: { isDemo: true } });
+  if (existing) {
+    // A demo shop made before the Drive library existed gets its demo engines once; a demo shop
+    // that has engines is left as it is (engines deleted on purpose do not come back).
+    if ((await Engine.count({ where: { shopId: existing.id } })) === 0) await seedDemoEngines(existing.id);
+    return false;
+  }
   const { shop } = await createShop(sequelize, { name: DEMO_SHOP_NAME, isDemo: true, users: [...DEMO_USERS] }, bcryptRounds);
   await seedDemoEngines(shop.id); // Drive library: the three invented demo engines
   return true;
