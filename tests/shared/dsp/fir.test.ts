@@ -38,6 +38,18 @@ describe('FIR low-pass (Kaiser window method, Oppenheim & Schafer §7.5)', () =>
     expect(20 * Math.log10(rmsOf(drop, 500, 9500) * Math.SQRT2)).toBeLessThan(-70);
   });
 
+  it('half-band decimation equals direct filtering at every second sample, from float32 and float64 alike', () => {
+    const hb = designHalfBand();
+    const x = gaussian(5001, 6);
+    const direct = firFilter(x, hb);
+    const d64 = decimateByTwo(x, hb);
+    const d32 = decimateByTwo(Float32Array.from(x), hb);
+    for (let k = 0; k < d64.length; k++) {
+      expect(d64[k]).toBeCloseTo(direct[2 * k], 12);
+      expect(d32[k]).toBeCloseTo(direct[2 * k], 5);
+    }
+  });
+
   it('refuses a cutoff outside (0, 0.5), naming it', () => {
     expect(() => designLowPass(0.7, 31)).toThrow(/0\.7/);
   });
