@@ -9,6 +9,7 @@ export default defineConfig({
   build: { outDir: 'dist/client', emptyOutDir: true, chunkSizeWarningLimit: 2000 },
   server: { proxy: { '/api': 'http://127.0.0.1:3000' } },
   test: {
+    reporters: ['default', './tests/setup/summary-reporter.ts'],
     projects: [
       {
         extends: true,
