@@ -109,3 +109,36 @@ export function medianSpacing(times: Float64Array): number {
   for (let i = 1; i < times.length; i++) d[i - 1] = times[i] - times[i - 1];
   return median(d);
 }
+
+/**
+ * Fills holes of a pulse train from pulses of the other polarity: a wasted spark fires once on the
+ * compression and once on the exhaust stroke, the exhaust spark weaker and often of the other
+ * polarity, so its ringing on the chosen polarity can stay under the threshold now and then. Every
+ * interval of about twice the median spacing (1.6–2.5×) takes the other-polarity pulse closest to
+ * its middle, if one lies within 0.35–0.65 of it; other intervals are left alone (a pulse of the
+ * other polarity that coincides with a detected one is the same spark). Returns the merged,
+ * increasing times and how many were added.
+ */
+export function fillHolesFromOther(times: readonly number[], others: readonly number[]): { times: number[]; added: number } {
+  const nominal = medianSpacing(Float64Array.from(times));
+  if (!Number.isFinite(nominal) || others.length === 0) return { times: [...times], added: 0 };
+  const out: number[] = [times[0]];
+  let added = 0;
+  let j = 0;
+  for (let i = 1; i < times.length; i++) {
+    const a = times[i - 1], b = times[i];
+    const d = b - a;
+    if (d >= 1.6 * nominal && d <= 2.5 * nominal) {
+      while (j < others.length && others[j] <= a) j++;
+      let best = -1, bestOff = Infinity;
+      for (let k = j; k < others.length && others[k] < b; k++) {
+        const off = Math.abs((others[k] - a) / d - 0.5);
+        if (off < 0.15 && off < bestOff) { best = others[k]; bestOff = off; }
+      }
+      if (best >= 0) { out.push(best); added++; }
+    }
+    out.push(b);
+  }
+  return { times: out, added };
+}
+

@@ -1,6 +1,6 @@
 import { type AnalysisSettings } from '../schemas/analysis-settings';
 import { AnalysisInputError } from './analysis-input-error';
-import { detectPulses, medianSpacing, type Polarity, pulseLevels } from './reference-edges';
+import { detectPulses, fillHolesFromOther, medianSpacing, type Polarity, pulseLevels } from './reference-edges';
 import { repairPulses } from './repair-pulses';
 import { type Warning } from './types';
 import { wheelAngles } from './wheel';
@@ -80,6 +80,14 @@ export function extractReference(ref: Float32Array, sampleRateHz: number, s: Ana
         if (between.length >= 0.7 * (times.length - 1) && medianSpacing(Float64Array.from(times)) > 1.6 * medianSpacingOfMerged(times, between)) {
           times = [...times, ...between].sort((a, b) => a - b);
           warnings.push({ code: 'wasted_spark_merged', message: `the reference alternates ${polarity} and ${other} pulses (wasted spark of the other polarity); both were used` });
+        } else {
+          // Most weak sparks were seen on this polarity (their ringing crosses the threshold), a
+          // few were not: those holes take the other-polarity pulse in their middle.
+          const filled = fillHolesFromOther(times, Array.from(op.times));
+          if (filled.added > 0) {
+            times = filled.times;
+            warnings.push({ code: 'wasted_spark_merged', message: `${filled.added} weak ${other} pulse${filled.added === 1 ? '' : 's'} (wasted spark of the other polarity) filled gaps of the ${polarity} reference pulses` });
+          }
         }
       }
     }

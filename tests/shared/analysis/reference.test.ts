@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { runPipeline } from '../../../shared/analysis/pipeline';
 import { resolveSettings } from '../../../shared/analysis/resolve-settings';
 import { extractReference } from '../../../shared/analysis/reference';
+import { fillHolesFromOther } from '../../../shared/analysis/reference-edges';
 import { type AnalysisSettingsInput } from '../../../shared/schemas/analysis-settings';
 import { crankProfile, gaussian, meanRpmOf, pulseTrain, wheelSignal } from '../../helpers/signals';
 import { crankAngle, crankSpeed } from '../../../shared/analysis/crank-speed';
@@ -39,6 +40,30 @@ describe('reference edges and crank speed, ±5 % speed wander', () => {
     expect(r.warnings.map((w) => w.code)).toContain('wasted_spark_merged');
     expect(r.phaseResolved).toBe(false);
     expect(r.ambiguityDeg).toBe(360);
+  });
+
+  it('per-rev: weak sparks mostly seen on the chosen polarity, a few only on the other one, fill their holes', () => {
+    // Strong compression sparks rise to 1 then ring to −0.7; the weak exhaust sparks fall to −0.5 and
+    // ring up to +0.35 (above the 0.3 threshold), except every fifth, which rings only to +0.2.
+    const ref = new Float32Array(n);
+    const pitch = fs / 14; // 840 rpm
+    for (let p = 1; p * pitch + 40 < n; p++) {
+      const i = Math.round(p * pitch);
+      const weak = p % 2 === 1;
+      const [a, b] = weak ? [-0.5, (p - 1) % 10 === 0 ? 0.2 : 0.35] : [1, -0.7];
+      for (let k = 0; k < 8; k++) { ref[i + k] += a; ref[i + 12 + k] += b; }
+    }
+    const { ref: r, speed } = speedOf(ref, { refKind: 'per-rev' });
+    expect(Math.abs(speed.meanRpm - 840) / 840).toBeLessThan(0.005);
+    expect(r.repairedEdges).toBe(0);
+    expect(r.warnings.map((w) => w.code)).toContain('wasted_spark_merged');
+  });
+
+  it('fillHolesFromOther fills only intervals of about twice the spacing, from a pulse near their middle', () => {
+    const filled = fillHolesFromOther([0, 100, 300, 400, 500, 700], [100.5, 199, 250, 600.2, 650]);
+    expect(filled.times).toEqual([0, 100, 199, 300, 400, 500, 600.2, 700]);
+    expect(filled.added).toBe(2);
+    expect(fillHolesFromOther([0, 100, 200, 300], [50, 150]).added).toBe(0);
   });
 
   it('per-cylinder (4 cylinders, 180° apart), falling polarity', () => {
