@@ -7,7 +7,7 @@
 import type { MatchedLine, OrderSpectrum, RankingEntry, RankingInput } from '../analysis/types';
 import type { BearingTable } from '../drive/bearing-table';
 import { candidateLines, windowOf } from '../drive/candidate-lines';
-import { likelyDeviation, relativeWindow } from '../drive/line-windows';
+import { likelyDeviation, relativeWindow, type DriveRegime, type LineRole } from '../drive/line-windows';
 import type { CandidateLine, ComponentCandidates, DriveDocument, Fault } from '../drive/types';
 import { estimateSlip, type SlipEstimate } from './estimate-slip';
 import { evidenceSentence } from './evidence';
@@ -30,8 +30,27 @@ interface Scored {
   fault: Fault;
   match: PatternMatch;
   slip: SlipEstimate | null;
+  /** The bearing pattern was read within the cage-lag band of the part's own measured shaft speed. */
+  shaftConfirmed: boolean;
   score: number;
   entry: RankingEntry;
+}
+
+/** Normal creep of a friction belt per stage (ISO 5292 via REFERENCES.md §5: 0.5–1 %). */
+const NORMAL_CREEP = 0.01;
+
+/**
+ * The usual core of a line's deviation when the part's slip is unmeasured: normal creep (0–1 % per
+ * belt stage) plus the race's cage lag, i.e. the union of the likely ranges at no creep and at
+ * normal creep. Null (use the likely range) when the slip is measured, for fixed-ratio and loose
+ * parts, and for belt-pass lines.
+ */
+function usualDeviation(role: LineRole, regime: DriveRegime, outer: boolean, slip: number | undefined, stages: number, share: number | undefined): [number, number] | null {
+  if (slip !== undefined || regime !== 'belt' || role === 'belt') return null;
+  const normal = 1 - (1 - NORMAL_CREEP) ** Math.max(1, stages);
+  const none = likelyDeviation(role, regime, outer, 0, stages, share);
+  const worn = likelyDeviation(role, regime, outer, normal, stages, share);
+  return [Math.min(none[0], worn[0]), Math.max(none[1], worn[1])];
 }
 
 function searchFor(cc: ComponentCandidates, fault: Fault, cyclesAveraged: number, slip?: number): PatternSearch {
@@ -45,11 +64,11 @@ function searchFor(cc: ComponentCandidates, fault: Fault, cyclesAveraged: number
   const f = cc.factors;
   const share = f && role === 'turning' ? (fault === 'inner_race' ? f.bpfo / f.bpfi : f.bpfi / f.bpfo) : undefined;
   const likely = likelyDeviation(role, cc.regime, outer, slip, cc.beltStages, share);
-  const preferCentre = slip === undefined;
-  let relative = { ...relativeWindow(role, cc.regime, outer, slip, cc.beltStages), likely, preferCentre };
+  const usual = usualDeviation(role, cc.regime, outer, slip, cc.beltStages, share) ?? likely;
+  let relative = { ...relativeWindow(role, cc.regime, outer, slip, cc.beltStages), likely, usual };
   if (carriers[0]) {
     const [lo, hi] = carriers[0].window;
-    relative = { below: lo / carriers[0].nominalOrder - 1, above: hi / carriers[0].nominalOrder - 1, likely, preferCentre };
+    relative = { below: lo / carriers[0].nominalOrder - 1, above: hi / carriers[0].nominalOrder - 1, likely, usual };
   }
   let modulatorWindow: [number, number] | undefined;
   if (sidebands.length > 0) {
@@ -69,14 +88,16 @@ function spectraFor(fault: Fault, input: RankingInput): { spectra: OrderSpectrum
   return { spectra: envelopes, residual: envelopes.map(() => true) };
 }
 
-function matchFault(cc: ComponentCandidates, fault: Fault, input: RankingInput, slip: SlipEstimate | null): PatternMatch {
+function matchFault(cc: ComponentCandidates, fault: Fault, input: RankingInput, slip: SlipEstimate | null): { match: PatternMatch; shaftConfirmed: boolean } {
   const { spectra, residual } = spectraFor(fault, input);
-  if (spectra.length === 0) return emptyMatch(searchFor(cc, fault, input.cyclesAveraged));
+  if (spectra.length === 0) return { match: emptyMatch(searchFor(cc, fault, input.cyclesAveraged)), shaftConfirmed: false };
   const full = matchPattern(spectra, searchFor(cc, fault, input.cyclesAveraged), residual);
-  if (!slip || fault === 'shaft' || cc.regime === 'fixed') return full;
+  if (!slip || fault === 'shaft' || fault === 'belt' || cc.regime === 'fixed') return { match: full, shaftConfirmed: false };
   // The part's measured slip narrows its bearing windows; prefer that reading unless it loses most of the evidence.
   const narrowed = matchPattern(spectra, searchFor(cc, fault, input.cyclesAveraged, slip.slip), residual);
-  return narrowed.total >= 0.6 * full.total && narrowed.total > 0 ? { ...narrowed, total: Math.min(1, narrowed.total * 1.1) } : full;
+  return narrowed.total >= 0.6 * full.total && narrowed.total > 0
+    ? { match: { ...narrowed, total: Math.min(1, narrowed.total * 1.1) }, shaftConfirmed: true }
+    : { match: full, shaftConfirmed: false };
 }
 
 function toMatched(match: PatternMatch): MatchedLine[] {
@@ -96,7 +117,7 @@ function nearShaftHarmonic(cc: ComponentCandidates, fault: Fault): number | null
 }
 
 function scoreOne(cc: ComponentCandidates, fault: Fault, input: RankingInput, slip: SlipEstimate | null): Scored {
-  const match = matchFault(cc, fault, input, slip);
+  const { match, shaftConfirmed } = matchFault(cc, fault, input, slip);
   // Seen in other envelope bands as well: a little more credible (at most 1 when confirmed twice).
   const total = match.total * (0.9 + 0.05 * Math.min(2, match.confirmations));
   const score = Math.round(1000 * Math.min(1, total)) / 1000;
@@ -122,7 +143,7 @@ function scoreOne(cc: ComponentCandidates, fault: Fault, input: RankingInput, sl
     approximate: cc.approximate && fault !== 'shaft' && fault !== 'belt',
     matched,
   };
-  return { candidates: cc, fault, match, slip, score, entry };
+  return { candidates: cc, fault, match, slip, shaftConfirmed, score, entry };
 }
 
 function markIndistinguishable(scored: Scored[], input: RankingInput): void {
@@ -184,6 +205,39 @@ function explainAway(scored: Scored[], input: RankingInput): void {
   }
 }
 
+/** Factor on a pattern whose lines a shaft-confirmed rival explains (see `explainByShaftConfirmed`). */
+const SHAFT_CONFIRMED_RIVAL_FACTOR = 0.7;
+
+/**
+ * Explaining away by a measured speed: when a part's bearing pattern sits where its own shaft line
+ * puts it (slip measured from the shaft 1×/2×, bearing lines within the cage-lag band of that
+ * speed), another part whose pattern reads the very same lines but whose speed the capture does
+ * not show (no shaft line of its own, so it fits only by assuming an unmeasured slip) is a
+ * coincidence of ratios, and counts less (×0.7). Parts whose whole patterns coincide (same ratio
+ * and bearing) are left to `markIndistinguishable`; a rival whose own shaft line was measured too
+ * keeps its score.
+ */
+function explainByShaftConfirmed(scored: Scored[], input: RankingInput): void {
+  const res = Math.max(input.orders.resolution, ...input.envelopes.map((b) => b.spectrum.resolution));
+  const maxOrder = Math.max(topOrder(input.orders), ...input.envelopes.map((b) => topOrder(b.spectrum)));
+  const carriersOf = (s: Scored) => s.match.lines.filter((l) => l.line.sideband === 0 && l.found.snrDb >= 6);
+  const confirmed = scored.filter((s) => s.shaftConfirmed && s.score >= 0.3 && carriersOf(s).length > 0);
+  for (const rival of scored) {
+    if (rival.shaftConfirmed || rival.slip !== null || rival.score <= 0 || rival.candidates.target !== 'component' || rival.fault === 'shaft') continue;
+    const strongest = carriersOf(rival).sort((a, b) => b.found.snrDb - a.found.snrDb)[0];
+    if (!strongest) continue;
+    const explainer = confirmed.find((c) => c.candidates.component !== rival.candidates.component
+      && c.score >= 0.8 * rival.score
+      && !patternsCoincide(c.candidates, rival.candidates, c.fault, res, maxOrder, rival.fault)
+      && carriersOf(c).some((l) => Math.abs(l.found.order - strongest.found.order) <= res));
+    if (!explainer) continue;
+    rival.score = Math.round(1000 * rival.score * SHAFT_CONFIRMED_RIVAL_FACTOR) / 1000;
+    rival.entry.score = rival.score;
+    const slipPct = explainer.slip ? (100 * explainer.slip.slip).toFixed(1) : '0.0';
+    rival.entry.evidence += `; its lines sit where ${explainer.entry.component}'s own shaft line (${slipPct} % slip) puts its ${explainer.fault.replace('_', ' ')} pattern, while this part's speed is not measured, so the fit is likelier a coincidence of ratios`;
+  }
+}
+
 /**
  * Ranks every (component, fault) of the drive and every belt for one capture. Returns one entry
  * each, sorted by score (0–1) descending, ties by component name then fault. Without envelope
@@ -205,6 +259,7 @@ export function rankCapture(drive: DriveDocument, input: RankingInput, options: 
     for (const fault of COMPONENT_FAULTS) scored.push(scoreOne(cc, fault, input, slip));
   }
   explainAway(scored, input);
+  explainByShaftConfirmed(scored, input);
   markIndistinguishable(scored, input);
   return scored
     .map((s) => s.entry)
