@@ -13,7 +13,7 @@ import { type StftOptions, visitStftPower } from '../dsp/stft';
  * bin scores the smaller of its plain and its normalised kurtosis.
  * The residual is in the angle domain; its bins map to Hz with the mean
  * speed (a structural resonance is fixed in Hz). Bands of 1×, 2× and 4× the minimum width slide in
- * quarter-width steps; the best two or three that overlap each other by less than half are kept.
+ * quarter-width steps; the best ones that do not overlap each other are kept.
  */
 export interface BandCandidate {
   bandHz: [number, number];
@@ -78,14 +78,22 @@ export function kurtosisBands(residual: Float64Array, search: BandSearch, plans:
   return pickDistinct(cands, search.count);
 }
 
-/** The first `count` candidates (in the given order) that overlap each chosen one by less than half. */
+/**
+ * The first `count` candidates (in the given order) that overlap no chosen one (bands may touch):
+ * each kept band then looks at a resonance of its own.
+ */
 export function pickDistinct(cands: BandCandidate[], count: number): BandCandidate[] {
   const chosen: BandCandidate[] = [];
   for (const c of cands) {
-    if (chosen.every((k) => overlapFraction(k.bandHz, c.bandHz) < 0.5)) chosen.push(c);
+    if (chosen.every((k) => !bandsOverlap(k.bandHz, c.bandHz))) chosen.push(c);
     if (chosen.length >= count) break;
   }
   return chosen;
+}
+
+/** True when two bands share more than 1 % of the narrower one's width. */
+export function bandsOverlap(a: [number, number], b: [number, number]): boolean {
+  return overlapFraction(a, b) > 0.01;
 }
 
 function overlapFraction(a: [number, number], b: [number, number]): number {
