@@ -46,11 +46,11 @@ export interface PatternSearch {
   /** Window of the modulating order (part shaft speed, or cage speed), for sidebands. */
   modulatorWindow?: [number, number];
   /**
-   * Relative window of the fundamental (below, above), the deviations the kinematics make likely,
-   * and the usual core within them (normal creep plus cage lag; the likely range when absent),
-   * for the plausibility of a reading.
+   * Relative window of the fundamental (below, above) and the deviations the kinematics make
+   * likely, for the plausibility of a reading; `preferCentre` false once the part's own shaft
+   * line has measured its slip (see `slipPlausibility`).
    */
-  relative: { below: number; above: number; likely: [number, number]; usual?: [number, number] };
+  relative: { below: number; above: number; likely: [number, number]; preferCentre?: boolean };
   cyclesAveraged: number;
 }
 
@@ -76,24 +76,26 @@ function combWeight(offCombFound: number, engineLinesRemoved: boolean, combLevel
 }
 
 /**
- * Plausibility 0.4–1 of a relative deviation `dev` of the fundamental from nominal: 1 inside the
- * usual core (± `slack`), falling linearly to 0.85 at the likely range's edges, then with the
- * square of the distance to 0.4 at the window's edges (and beyond; gentle just past the likely
- * edge, where a measured slip's own spread can put a line).
+ * Plausibility 0.4–1 of a relative deviation `dev` of the fundamental from nominal, with `slack`
+ * (half a bin) added to the likely range. Unmeasured slip (`preferCentre`): 1 at the middle of the
+ * likely range, 0.85 at its ends, and beyond them falling in proportion to the slip the reading
+ * needs past the likely range, to 0.4 at the window's edges. Measured slip (the part's own shaft
+ * line fixed its speed, only the cage lag is left): 1 over the likely range, falling with the
+ * square of the distance beyond it (gentle just past its edge, where the measurement's own spread
+ * can put a line).
  */
 export function slipPlausibility(dev: number, relative: PatternSearch['relative'], slack: number): number {
-  const { below, above, likely } = relative;
-  const usual = relative.usual ?? likely;
-  const uLo = Math.max(likely[0], usual[0]) - slack;
-  const uHi = Math.min(likely[1], usual[1]) + slack;
-  const lo = Math.min(uLo, likely[0] - slack);
-  const hi = Math.max(uHi, likely[1] + slack);
-  const fall = (d: number, span: number) => Math.min(1, d / Math.max(1e-6, span));
-  if (dev < lo) return 0.85 - 0.45 * fall(lo - dev, lo - below) ** 2;
-  if (dev > hi) return 0.85 - 0.45 * fall(dev - hi, above - hi) ** 2;
-  if (dev < uLo) return 1 - 0.15 * fall(uLo - dev, uLo - lo);
-  if (dev > uHi) return 1 - 0.15 * fall(dev - uHi, hi - uHi);
-  return 1;
+  const { below, above, likely, preferCentre } = relative;
+  const lo = likely[0] - slack;
+  const hi = likely[1] + slack;
+  const fall = (d: number, span: number) => {
+    const x = Math.min(1, d / Math.max(1e-6, span));
+    return preferCentre === false ? x * x : x;
+  };
+  if (dev < lo) return 0.85 - 0.45 * fall(lo - dev, lo - below);
+  if (dev > hi) return 0.85 - 0.45 * fall(dev - hi, above - hi);
+  if (preferCentre === false) return 1;
+  return 1 - 0.15 * ((dev - (likely[0] + likely[1]) / 2) / Math.max(1e-6, (hi - lo) / 2)) ** 2;
 }
 
 function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spectrumIndex: number, engineLinesRemoved: boolean, combLevelDb: number): PatternMatch {
@@ -160,12 +162,8 @@ function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spe
   const sbFound = sbPossible > 0 ? Math.min(1, sbTotal / sbPossible) : 0;
   const expectation = sbPossible > 0 ? sbExpected / sbPossible : 0;
   const sidebandFactor = sbPossible > 0 ? 0.85 + 0.15 * sbFound - 0.25 * expectation * (1 - sbFound) : 0.85;
-  // Plausibility of the fundamental's deviation from nominal: 1 over the usual core (normal
-  // creep plus the race's cage lag, or the measured slip plus the lag when the part's own shaft
-  // line fixed its speed), falling in proportion to the distance beyond it to 0.85 at the edge of
-  // what the kinematics allow as likely (worn-belt creep of 3 % plus the lag), then to 0.4 at the
-  // window's edges, so that a stray impulsive source or a near-equal ratio that needs an unusual
-  // slip counts less than a pattern sitting where its part's nominal or measured speed puts it.
+  // Plausibility of the fundamental's deviation from nominal (`slipPlausibility`), so that a
+  // stray impulsive source or a near-equal ratio that needs an extreme slip counts less.
   // Judge the fundamental the matched lines imply (least squares over harmonics), not the trial
   // value that found them, so a trial inside the window cannot vouch for lines outside it.
   const nominal = search.carriers.find((c) => c.harmonic === 1)?.nominalOrder ?? search.carriers[0].nominalOrder / search.carriers[0].harmonic;

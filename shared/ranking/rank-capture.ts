@@ -7,7 +7,7 @@
 import type { MatchedLine, OrderSpectrum, RankingEntry, RankingInput } from '../analysis/types';
 import type { BearingTable } from '../drive/bearing-table';
 import { candidateLines, windowOf } from '../drive/candidate-lines';
-import { likelyDeviation, relativeWindow, type DriveRegime, type LineRole } from '../drive/line-windows';
+import { likelyDeviation, relativeWindow } from '../drive/line-windows';
 import type { CandidateLine, ComponentCandidates, DriveDocument, Fault } from '../drive/types';
 import { estimateSlip, type SlipEstimate } from './estimate-slip';
 import { evidenceSentence } from './evidence';
@@ -36,23 +36,6 @@ interface Scored {
   entry: RankingEntry;
 }
 
-/** Normal creep of a friction belt per stage (ISO 5292 via REFERENCES.md §5: 0.5–1 %). */
-const NORMAL_CREEP = 0.01;
-
-/**
- * The usual core of a line's deviation when the part's slip is unmeasured: normal creep (0–1 % per
- * belt stage) plus the race's cage lag, i.e. the union of the likely ranges at no creep and at
- * normal creep. Null (use the likely range) when the slip is measured, for fixed-ratio and loose
- * parts, and for belt-pass lines.
- */
-function usualDeviation(role: LineRole, regime: DriveRegime, outer: boolean, slip: number | undefined, stages: number, share: number | undefined): [number, number] | null {
-  if (slip !== undefined || regime !== 'belt' || role === 'belt') return null;
-  const normal = 1 - (1 - NORMAL_CREEP) ** Math.max(1, stages);
-  const none = likelyDeviation(role, regime, outer, 0, stages, share);
-  const worn = likelyDeviation(role, regime, outer, normal, stages, share);
-  return [Math.min(none[0], worn[0]), Math.max(none[1], worn[1])];
-}
-
 function searchFor(cc: ComponentCandidates, fault: Fault, cyclesAveraged: number, slip?: number): PatternSearch {
   const relocate = (l: CandidateLine): CandidateLine => (slip === undefined ? l : { ...l, window: windowOf(l, cc.regime, cc.rotatingRing, slip, cc.beltStages) });
   const lines = cc.lines.filter((l) => l.fault === fault).map(relocate);
@@ -64,11 +47,11 @@ function searchFor(cc: ComponentCandidates, fault: Fault, cyclesAveraged: number
   const f = cc.factors;
   const share = f && role === 'turning' ? (fault === 'inner_race' ? f.bpfo / f.bpfi : f.bpfi / f.bpfo) : undefined;
   const likely = likelyDeviation(role, cc.regime, outer, slip, cc.beltStages, share);
-  const usual = usualDeviation(role, cc.regime, outer, slip, cc.beltStages, share) ?? likely;
-  let relative = { ...relativeWindow(role, cc.regime, outer, slip, cc.beltStages), likely, usual };
+  const preferCentre = slip === undefined;
+  let relative = { ...relativeWindow(role, cc.regime, outer, slip, cc.beltStages), likely, preferCentre };
   if (carriers[0]) {
     const [lo, hi] = carriers[0].window;
-    relative = { below: lo / carriers[0].nominalOrder - 1, above: hi / carriers[0].nominalOrder - 1, likely, usual };
+    relative = { below: lo / carriers[0].nominalOrder - 1, above: hi / carriers[0].nominalOrder - 1, likely, preferCentre };
   }
   let modulatorWindow: [number, number] | undefined;
   if (sidebands.length > 0) {
@@ -146,6 +129,8 @@ function scoreOne(cc: ComponentCandidates, fault: Fault, input: RankingInput, sl
   return { candidates: cc, fault, match, slip, shaftConfirmed, score, entry };
 }
 
+const isBearingFault = (fault: Fault): boolean => fault !== 'shaft' && fault !== 'belt';
+
 function markIndistinguishable(scored: Scored[], input: RankingInput): void {
   const res = Math.max(input.orders.resolution, ...input.envelopes.map((b) => b.spectrum.resolution));
   const maxOrder = Math.max(topOrder(input.orders), ...input.envelopes.map((b) => topOrder(b.spectrum)));
@@ -162,17 +147,18 @@ function markIndistinguishable(scored: Scored[], input: RankingInput): void {
   for (const s of scored) {
     if (s.entry.indistinguishableFrom.length > 0) s.entry.evidence += `; ${separationAdvice(s.entry.indistinguishableFrom)}`;
   }
-  // Near-equal ratios: another part whose same fault reads the very same lines almost as well is
+  // Near-equal ratios: another part whose same fault (or another bearing fault) reads the very same lines almost as well is
   // not indistinguishable (its pattern differs within the slip allowance), but the technician
   // should know the capture leans on slip to choose between them.
   for (const a of live) {
     const strongest = a.match.lines.filter((l) => l.line.sideband === 0).sort((x, y) => y.found.snrDb - x.found.snrDb)[0];
     if (!strongest) continue;
-    const rivals = scored.filter((b) => b !== a && b.fault === a.fault && b.candidates.target === 'component'
+    const rivals = scored.filter((b) => b !== a && (b.fault === a.fault || (isBearingFault(a.fault) && isBearingFault(b.fault))) && b.candidates.target === 'component'
       && b.candidates.component !== a.candidates.component && !a.entry.indistinguishableFrom.includes(b.entry.component)
       && b.score >= 0.85 * a.score && b.match.lines.some((l) => Math.abs(l.found.order - strongest.found.order) <= res));
     if (rivals.length > 0) {
-      a.entry.evidence += `; the same lines also fit ${rivals.map((r) => r.entry.component).join(', ')} with a different slip (near-equal ratio): a probe nearer each part separates them`;
+      const names = rivals.map((r) => (r.fault === a.fault ? r.entry.component : `${r.entry.component} (${r.fault.replace('_', ' ')})`));
+      a.entry.evidence += `; the same lines also fit ${names.join(', ')} with a different slip (near-equal ratio): a probe nearer each part separates them`;
     }
   }
 }
