@@ -1,18 +1,16 @@
-import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-import { chromium, type Browser, type Page } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_USERS } from '../../server/services/demo-shop';
 import { DEMO_I4 } from '../../server/db/seeders/demo-engines';
-import { startTestServer } from '../helpers/test-server';
+import { freePort, startTestServer } from '../helpers/test-server';
+import { launchChromium, screenshot, SCREENSHOTS } from '../helpers/browser';
 
 // Browser check of the Drive library on the BUILT app with the demo shop (and its three invented
 // demo engines): the engines table, the engine page with computed orders and the belt sketch, an
 // edit saved and read back, the read-only view, and the Bearings page. Screenshots go to
 // tests/e2e/screenshots/ (git-ignored) for a person to look at.
 
-const PORT = Number(process.env.E2E_DRIVE_PORT ?? 3400);
-const SCREENSHOTS = path.resolve('tests/e2e/screenshots');
 const lead = DEMO_USERS.find((u) => u.role === 'lead')!;
 const tech = DEMO_USERS.find((u) => u.role === 'tech')!;
 
@@ -20,13 +18,9 @@ let browser: Browser;
 let server: { baseUrl: string; stop: () => Promise<void> };
 
 beforeAll(async () => {
-  mkdirSync(SCREENSHOTS, { recursive: true });
-  server = await startTestServer({ port: PORT });
-  browser = await chromium.launch({
-    executablePath: '/usr/bin/chromium',
-    headless: true,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'],
-  });
+  // A free port unless one is given, so two suites on one machine never share a server.
+  server = await startTestServer({ port: process.env.E2E_DRIVE_PORT ? Number(process.env.E2E_DRIVE_PORT) : await freePort() });
+  browser = await launchChromium();
 });
 
 afterAll(async () => {
@@ -50,7 +44,7 @@ async function signedIn(user: { email: string; password: string }): Promise<{ pa
   return { page, problems };
 }
 
-const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `${name}.png`), fullPage: true });
+const shot = screenshot;
 
 describe('Drive library in the browser', () => {
   it('lists the demo engines and opens one with its computed orders and belt sketch', async () => {

@@ -1,16 +1,14 @@
-import { mkdirSync } from 'node:fs';
-import path from 'node:path';
-import { chromium, type Browser, type Page } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { NAV_LABELS, navSectionsFor, type Role } from '../../shared/auth/roles';
 import { DEMO_USERS } from '../../server/services/demo-shop';
 import { freePort, startTestServer } from '../helpers/test-server';
+import { launchChromium, screenshot } from '../helpers/browser';
 
 // Browser test of the Foundation: the BUILT app (npm test builds first) served by the built server
 // against the e2e database with the demo shop, driven through Debian's Chromium.
 // Screenshots land in tests/e2e/screenshots/ (git-ignored) for a person to look at.
 
-const SCREENSHOTS = path.resolve('tests/e2e/screenshots');
 
 let browser: Browser;
 /** The user the invite test creates; the reset test uses it so the demo users keep their README passwords for other test files. */
@@ -18,15 +16,10 @@ let invited: { email: string; password: string } | undefined;
 let server: { baseUrl: string; stop: () => Promise<void> };
 
 beforeAll(async () => {
-  mkdirSync(SCREENSHOTS, { recursive: true });
   // A free port unless one is given: several people's suites may run on one machine, and a fixed
   // port would let this test talk to someone else's server.
   server = await startTestServer({ port: process.env.E2E_PORT ? Number(process.env.E2E_PORT) : await freePort() });
-  browser = await chromium.launch({
-    executablePath: '/usr/bin/chromium',
-    headless: true,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'],
-  });
+  browser = await launchChromium();
 });
 
 afterAll(async () => {
@@ -82,9 +75,7 @@ async function openOutboxMessage(page: Page, to: string, skip?: RegExp) {
   await rows.first().click();
 }
 
-function shot(page: Page, name: string) {
-  return page.screenshot({ path: path.join(SCREENSHOTS, `${name}.png`), fullPage: true });
-}
+const shot = screenshot;
 
 describe('Foundation in the browser', () => {
   it('shows the sign-in page to a visitor and sends the app root there', async () => {
