@@ -1,6 +1,6 @@
 import { type FftPlanCache, nextPowerOfTwo } from '../dsp/fft';
 import { spectralKurtosis } from '../dsp/spectral-kurtosis';
-import { type StftOptions, visitStftPower } from '../dsp/stft';
+import { type StftOptions, stftFrameCount, visitStftPower } from '../dsp/stft';
 
 /**
  * Automatic envelope band (DESIGN.md step 5): spectral kurtosis (Antoni 2006) of the residual
@@ -104,8 +104,9 @@ function overlapFraction(a: [number, number], b: [number, number]): number {
 /**
  * The smaller of the plain spectral kurtosis and that of the power normalised per (position in
  * the cycle, bin): impulsive in both senses, so neither cycle-locked ticks nor the noisy
- * normalisation of a quiet band win. Two STFT passes, the first also for the mean power at each
- * of `positions` frame positions per cycle.
+ * normalisation of a quiet band win. One STFT pass: the frames' powers are kept (at most a few
+ * thousand frames of a few hundred bins) for the mean power at each of `positions` frame
+ * positions per cycle, then normalised from memory.
  */
 function cycleNormalisedKurtosis(x: Float64Array, options: StftOptions, positions: number, plans: FftPlanCache): Float64Array {
   const bins = options.frameSize / 2 + 1;
@@ -113,18 +114,27 @@ function cycleNormalisedKurtosis(x: Float64Array, options: StftOptions, position
   const count = new Float64Array(positions);
   const r2 = new Float64Array(bins);
   const r4 = new Float64Array(bins);
-  visitStftPower(x, options, plans, (f, p) => {
-    const o = (f % positions) * bins;
-    count[f % positions]++;
+  const stride = Math.max(1, Math.floor(options.stride ?? 1));
+  const stored = new Float64Array(Math.ceil(stftFrameCount(x.length, options.frameSize, options.hop) / stride) * bins);
+  const position = new Int32Array(stored.length / bins);
+  let row = 0;
+  const frames = visitStftPower(x, options, plans, (f, p) => {
+    const q = f % positions;
+    const o = q * bins;
+    count[q]++;
+    position[row] = q;
+    stored.set(p, row * bins);
+    row++;
     for (let k = 0; k < bins; k++) { const v = p[k]; mean[o + k] += v; r2[k] += v; r4[k] += v * v; }
   });
   for (let q = 0; q < positions; q++) for (let k = 0; k < bins; k++) mean[q * bins + k] = mean[q * bins + k] / Math.max(1, count[q]) + 1e-300;
   const s2 = new Float64Array(bins);
   const s4 = new Float64Array(bins);
-  const frames = visitStftPower(x, options, plans, (f, p) => {
-    const o = (f % positions) * bins;
-    for (let k = 0; k < bins; k++) { const v = p[k] / mean[o + k]; s2[k] += v; s4[k] += v * v; }
-  });
+  for (let r = 0; r < frames; r++) {
+    const o = position[r] * bins;
+    const so = r * bins;
+    for (let k = 0; k < bins; k++) { const v = stored[so + k] / mean[o + k]; s2[k] += v; s4[k] += v * v; }
+  }
   const sk = new Float64Array(bins);
   for (let k = 0; k < bins; k++) {
     const m2 = s2[k] / frames;

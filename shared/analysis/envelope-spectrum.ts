@@ -3,11 +3,14 @@ import { createWindow } from '../dsp/window';
 import { finishSpectrum } from './order-spectrum';
 import { type OrderSpectrum } from './types';
 
+/** Whole blocks from which the blocks no longer overlap. */
+const MIN_BLOCKS_WITHOUT_OVERLAP = 16;
+
 /**
  * Envelope order spectra of several bands from one pass over an angle-domain signal. Per block of
- * revsPerBlock revolutions (50 % overlap): Hann window, one real FFT shared by all bands; per band
- * the bins of the band (orders = Hz / mean shaft Hz), doubled (analytic signal, Marple 1999) and
- * moved to baseband, an inverse FFT of a smaller size M gives the complex band signal decimated to
+ * revsPerBlock revolutions (50 % overlap; none for the full average once 16 whole blocks fit):
+ * Hann window, one real FFT shared by all bands; per band the bins of the band (orders = Hz / mean
+ * shaft Hz), doubled (analytic signal, Marple 1999) and moved to baseband, an inverse FFT of a smaller size M gives the complex band signal decimated to
  * M samples per block; |z| is the envelope times the window (the window varies slowly against the
  * band), its mean·window is removed (the spectrum of the envelope, mean removed — not the squared
  * envelope), a real FFT of size M, power averaged over blocks. Amplitudes are single-sided peak
@@ -19,7 +22,9 @@ export function envelopeSpectra(x: Float64Array, samplesPerRev: number, revsPerB
   if (x.length < n) throw new RangeError(`envelope spectrum needs at least ${n} samples (one block), got ${x.length}`);
   const plan = plans.get(n);
   const w = createWindow('hann', n);
-  const hop = n / 2;
+  // 50 % overlap only while whole blocks are scarce: with 16 or more, the average is steady
+  // enough without it, and each block costs one full-length FFT.
+  const hop = maxBlocks === Infinity && Math.floor(x.length / n) >= MIN_BLOCKS_WITHOUT_OVERLAP ? n : n / 2;
   const allBlocks = Math.floor((x.length - n) / hop) + 1;
   // With maxBlocks, evenly spaced blocks only (a quick look for choosing bands).
   const blocks = Math.min(allBlocks, maxBlocks);

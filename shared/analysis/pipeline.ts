@@ -135,7 +135,9 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
 
   // 5. Envelope of the residual after the 720° average, in the angle domain at a high rate.
   t0 = clock();
-  const hiSpr = Math.max(2 * spr, nextPowerOfTwo(fsE / meanShaftHz));
+  // Enough samples per revolution to carry the usable band at the slowest speed (2.2 × its top),
+  // not more: the rate fsE itself is often far above that once rounded up to a power of two.
+  const hiSpr = Math.max(2 * spr, nextPowerOfTwo(Math.min(fsE / meanShaftHz, (2.2 * usableHz) / minShaftHz)));
   const tdcDeg = reference.cycleOriginDeg + settings.tdcOffsetDeg;
   const cycleStart = tdcDeg + 720 * Math.ceil((crank.firstDeg - tdcDeg) / 720);
   const hiCount = Math.max(0, Math.floor(((crank.lastDeg - cycleStart) / 360) * hiSpr));
