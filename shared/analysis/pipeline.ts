@@ -61,6 +61,16 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
         `the capture has ${nch} channel${nch === 1 ? '' : 's'} but ${flag} ${ch} asks for channel ${ch}; record the reference and the pickup together or fix ${flag}`);
     }
   }
+  // One channel cannot carry two roles: the reference pulses would swamp the vibration spectrum
+  // (or the cam pulse would be read as a crank pulse), and the result would look plausible.
+  for (let i = 0; i < roles.length; i++) {
+    for (let j = i + 1; j < roles.length; j++) {
+      if (roles[i][1] === roles[j][1]) {
+        throw new AnalysisInputError('channel_conflict',
+          `${roles[i][0]} and ${roles[j][0]} both name channel ${roles[i][1]}; each role needs its own channel, so give the channel each signal was recorded on`);
+      }
+    }
+  }
   const n = input.channels[0].length;
   const durationS = n / fs;
   const scale = (ch: number) => settings.channelScales[ch - 1] ?? 1;
@@ -224,17 +234,30 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
   };
 }
 
-/** Warns when the strongest engine line sits at 2× or ½× the firing order (wrong pulse count?). */
+/** Largest whole factor a wrong pulse count or cylinder count is looked for at (8 per cycle vs 1, and back). */
+const MISMATCH_MAX_FACTOR = 8;
+
+/**
+ * Warns when the strongest engine line sits at a whole multiple (2×…8×) or at ½ of the firing
+ * order: every order scales by (pulses assumed / pulses on the reference), so a wrong pulse count
+ * or cylinder count moves the firing line by such a factor. Lower fractions are left out, since a
+ * misfire or an unequal cylinder makes the 0.5 and 1.0 lines strong on a healthy reference.
+ */
 function sanityCheck(peaks: AnalysisResult['orders']['peaks'], cylinders: number, warnings: Warning[]): void {
   const firing = cylinders / 2;
   const strongest = peaks.find((p) => p.engineOrder !== null);
   if (!strongest || strongest.engineOrder === null) return;
   const eo = strongest.engineOrder;
-  if (Math.abs(eo - 2 * firing) < 1e-9 || Math.abs(eo - firing / 2) < 1e-9) {
+  for (let k = 2; k <= MISMATCH_MAX_FACTOR; k++) {
+    const above = Math.abs(eo - k * firing) < 1e-9;
+    // Below the firing order only ½: a misfire or an unequal cylinder makes 0.5 and 1.0 strong.
+    if (!above && (k > 2 || Math.abs(eo - firing / k) >= 1e-9)) continue;
+    const factor = k === 2 ? (above ? 'twice' : 'half') : (above ? `${k} times` : `1/${k} of`);
     warnings.push({
       code: 'firing_order_mismatch',
-      message: `the strongest engine line is at order ${eo}, ${eo > firing ? 'twice' : 'half'} the firing order ${firing} of ${cylinders} cylinders; the reference pulse count (--ref-kind / --ref-per-cycle) or --cylinders is probably wrong`,
+      message: `the strongest engine line is at order ${eo}, ${factor} the firing order ${firing} of ${cylinders} cylinders; the reference pulse count (--ref-kind / --ref-per-cycle) or --cylinders is probably wrong`,
     });
+    return;
   }
 }
 
