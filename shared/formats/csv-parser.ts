@@ -1,13 +1,15 @@
 import { type Capture, type CaptureParser, GrowableFloat32, GrowableFloat64 } from './capture';
 import { CaptureFormatError, checkSampleRate } from './capture-format-error';
-import { type CsvLayout, type TimeUnit, detectCsvLayout, isNonFiniteWord, parseCell, splitFields, timeUnitFactor } from './csv-layout';
+import { type TimeUnit, allEmpty, isNonFiniteWord, parseCell, splitCells, timeUnitFactor } from './csv-cells';
+import { type CsvLayout, detectCsvLayout } from './csv-layout';
 import { fitSampleRate } from './fit-sample-rate';
 
 /**
- * Streaming CSV/TSV capture reader: a time column then one column per channel (or a preamble
- * sample interval and channel columns only), separators `,` `;` tab, decimal point or comma,
- * optional preamble and unit rows (see csv-layout.ts). The sample rate is fitted over the whole
- * time column (fit-sample-rate.ts). Values stay in the column's units.
+ * Streaming CSV/TSV capture reader: a time column then one column per channel (or a sample index,
+ * or channel columns only, with the interval given in the preamble), separators `,` `;` tab,
+ * decimal point or comma, quotes, LF/CRLF/CR line ends, optional preamble and unit rows (see
+ * csv-layout.ts). The sample rate is fitted over the whole time column (fit-sample-rate.ts) or
+ * computed from the interval. Values stay in the column's units.
  */
 
 export interface CsvParserOptions {
@@ -32,6 +34,7 @@ export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
   let time: GrowableFloat64 | null = null;
   let timeDecimals = 0;
   let timeExp = 0;
+  let pendingCr = false;
 
   function fail(code: 'not_a_number' | 'ragged_row' | 'non_finite', line: number, msg: string): never {
     throw new CaptureFormatError(code, `${name}, line ${line}: ${msg}`);
@@ -43,7 +46,7 @@ export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
     if (cols.length === 0) {
       throw new CaptureFormatError('too_few_channels', `${name}: only a time column, no channel columns; export the reference and pickup channels too`);
     }
-    time = layout.hasTimeColumn ? new GrowableFloat64(1 << 16) : null;
+    time = layout.timeColumn !== null ? new GrowableFloat64(1 << 16) : null;
     const lines = head!;
     head = null;
     for (let i = layout.dataStart; i < lines.length; i++) dataLine(lines[i], headFirstLineNo + i);
@@ -51,25 +54,30 @@ export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
 
   function dataLine(line: string, no: number) {
     const L = layout!;
-    if (line.length === 0 || line.trim() === '') return;
-    const f = splitFields(line, L.separator);
-    if (f.length !== L.fields) {
-      fail('ragged_row', no, `${f.length} fields where the header has ${L.fields}; fix or remove that row (or export again)`);
+    if (line.length === 0) return;
+    const f = splitCells(line, L.separator);
+    if (f.length < L.minCells) {
+      if (allEmpty(f)) return;
+      fail('ragged_row', no, `${f.length} fields where the data rows have ${L.minCells}; fix or remove that row (or export again)`);
     }
-    let c0 = 0;
+    if (!L.allowSideCells && f.length > L.minCells) {
+      for (let c = L.minCells; c < f.length; c++) {
+        if (f[c] !== '') fail('ragged_row', no, `${f.length} fields where the data rows have ${L.minCells}; fix or remove that row (or export again)`);
+      }
+    }
     if (time) {
-      const cell = f[0];
+      const cell = f[L.timeColumn!];
       const v = parseCell(cell, L.decimalComma);
-      if (!Number.isFinite(v)) badCell(cell, no, 1);
+      if (!Number.isFinite(v)) { if (allEmpty(f)) return; badCell(cell, no, L.timeColumn! + 1); }
       time.push(v);
       if (time.length <= 4096) trackPrecision(cell);
-      c0 = 1;
     }
-    for (let c = c0; c < L.fields; c++) {
-      const cell = f[c];
+    const cc = L.channelColumns;
+    for (let k = 0; k < cc.length; k++) {
+      const cell = f[cc[k]];
       const v = parseCell(cell, L.decimalComma);
-      if (!Number.isFinite(v)) badCell(cell, no, c + 1);
-      cols[c - c0].push(v);
+      if (!Number.isFinite(v)) { if (allEmpty(f)) return; badCell(cell, no, cc[k] + 1); }
+      cols[k].push(v);
     }
   }
 
@@ -86,14 +94,20 @@ export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
     if (dec - exp > timeDecimals - timeExp) { timeDecimals = dec; timeExp = exp; }
   }
 
-  function takeLines(text: string, final: boolean) {
+  function takeLines(raw: string, final: boolean) {
+    let text = raw;
+    if (pendingCr) { text = '\r' + text; pendingCr = false; }
+    if (text.indexOf('\r') >= 0) {
+      // CR or CRLF line ends: a CR at the chunk's end may be half of a CRLF, so it waits.
+      if (!final && text.endsWith('\r')) { text = text.slice(0, -1); pendingCr = true; }
+      text = text.replace(/\r\n?/g, '\n');
+    }
     const all = rest + text;
     let start = 0;
     for (;;) {
       const nl = all.indexOf('\n', start);
       if (nl < 0) break;
-      let line = all.slice(start, nl);
-      if (line.endsWith('\r')) line = line.slice(0, -1);
+      const line = all.slice(start, nl);
       start = nl + 1;
       lineNo++;
       if (head) {
@@ -105,7 +119,7 @@ export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
     rest = all.slice(start);
     if (final && rest.length > 0) {
       lineNo++;
-      const line = rest.endsWith('\r') ? rest.slice(0, -1) : rest;
+      const line = rest;
       rest = '';
       if (head) { if (head.length === 0) headFirstLineNo = lineNo; head.push(line); } else dataLine(line, lineNo);
     }
@@ -129,14 +143,26 @@ export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
       if (n < 2) throw new CaptureFormatError('no_data', `${name}: ${n} data row${n === 1 ? '' : 's'}; a capture needs at least a second of samples — export the whole record`);
       const notes: string[] = [];
       let sampleRateHz: number;
-      if (time) {
-        const unitS = timeUnitFactor(L.timeUnit);
+      let unitSource = L.timeUnitSource;
+      if (time && L.timeKind === 'index') {
+        // A sample counter: fitted like a time column (gaps show as residuals), one count = one interval.
+        const fit = fitSampleRate(time.toArray(), 1, name);
+        sampleRateHz = 1 / (fit.intervalUnits * L.preambleIntervalS!);
+        unitSource = 'preamble';
+      } else if (time) {
         const precision = Math.pow(10, -(timeDecimals - timeExp));
         const fit = fitSampleRate(time.toArray(), precision, name);
+        let unitS = timeUnitFactor(L.timeUnit);
+        const interval = L.preambleIntervalS;
+        if (unitSource === 'default' && interval) {
+          // No unit stated: the preamble's interval says whether the column is in s, ms or µs.
+          const match = (['s', 'ms', 'us'] as TimeUnit[]).find((u) => Math.abs((fit.intervalUnits * timeUnitFactor(u)) / interval - 1) <= 0.01);
+          if (match) { unitS = timeUnitFactor(match); unitSource = 'preamble'; }
+        }
         sampleRateHz = 1 / (fit.intervalUnits * unitS);
-        if (L.timeUnitSource === 'default') notes.push('time column unit not stated; read as seconds (use --time-unit ms if it is milliseconds)');
-        if (L.preambleIntervalS && Math.abs(L.preambleIntervalS * sampleRateHz - 1) > 0.01) {
-          notes.push(`the preamble's sample interval (${L.preambleIntervalS} s) differs from the time column's; used the time column`);
+        if (unitSource === 'default') notes.push('time column unit not stated; read as seconds (use --time-unit ms if it is milliseconds)');
+        if (interval && Math.abs(interval * sampleRateHz - 1) > 0.01) {
+          notes.push(`the preamble's sample interval (${interval} s) differs from the time column's; used the time column`);
         }
       } else {
         sampleRateHz = 1 / L.preambleIntervalS!;
@@ -144,7 +170,7 @@ export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
       if (!(sampleRateHz > 0) || !Number.isFinite(sampleRateHz)) {
         throw new CaptureFormatError('zero_rate', `${name}: the time column does not advance, so the sample rate is zero; export with a time column in seconds or milliseconds`);
       }
-      if (L.timeUnitSource === 'default' && sampleRateHz < 1000 && sampleRateHz * 1000 >= 1000) {
+      if (unitSource === 'default' && sampleRateHz < 1000 && sampleRateHz * 1000 >= 1000) {
         throw new CaptureFormatError('rate_out_of_range',
           `${name}: read as seconds, the time column gives ${sampleRateHz.toPrecision(4)} Hz (below 1 kHz); if it is in milliseconds, add --time-unit ms`);
       }
