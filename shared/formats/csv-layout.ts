@@ -150,7 +150,7 @@ export function detectCsvLayout(lines: string[], name: string, timeUnitSetting: 
   }
   const lo = cols[0];
   const hi = cols[cols.length - 1];
-  const side = (cells: string[]) => [cells.slice(0, lo), cells.slice(hi + 1)].filter((s) => !allEmpty(s));
+  const side = (cells: string[]) => [cells.slice(0, lo), cells.slice(hi + 1)].filter((s) => !allEmpty(s)).map((s) => s.slice(s.findIndex((c) => c !== '')));
   if (header) {
     const below = units ?? dataRows[0]?.cells ?? [];
     header.forEach((h, c) => { if ((c < lo || c > hi) && h !== '' && (below[c] ?? '') !== '') entries.push([h, below[c]]); });
