@@ -95,7 +95,7 @@ export function extractReference(ref: Float32Array, sampleRateHz: number, s: Ana
 
   let result: { timesSamples: Float64Array; angles: Float64Array; edges: number; repaired: number; gaps: number };
   if (isWheel) {
-    const w = wheelAngles(times, teeth, missing);
+    const w = wheelAngles(times, teeth, missing, fs);
     if (w.gaps === 0) {
       throw new AnalysisInputError('no_wheel_gap', `no gap found on the ${s.wheel} trigger wheel (channel ${s.refChannel}); check --wheel and --ref-kind`);
     }
