@@ -20,11 +20,13 @@ export interface CsvParserOptions {
 }
 
 const LAYOUT_LINES = 400;
+/** 9.9E37 and above: the IEEE 488.2 / SCPI "not a number" marker instruments write for over range (from memory). */
+const OVER_RANGE = 9.9e37;
 
 /** Creates a CSV chunk parser. */
 export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
   const name = options.name ?? 'CSV file';
-  const decoder = new TextDecoder('utf-8');
+  let decoder: TextDecoder | null = null;
   let rest = '';
   let lineNo = 0;
   let head: string[] | null = [];
@@ -76,13 +78,13 @@ export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
     for (let k = 0; k < cc.length; k++) {
       const cell = f[cc[k]];
       const v = parseCell(cell, L.decimalComma);
-      if (!Number.isFinite(v)) { if (allEmpty(f)) return; badCell(cell, no, cc[k] + 1); }
+      if (!(Math.abs(v) < OVER_RANGE)) { if (allEmpty(f)) return; badCell(cell, no, cc[k] + 1); }
       cols[k].push(v);
     }
   }
 
   function badCell(cell: string, no: number, col: number): never {
-    if (isNonFiniteWord(cell)) fail('non_finite', no, `column ${col} holds "${cell}" (not a finite number); the instrument was probably over range — record again with a larger range`);
+    if (isNonFiniteWord(cell) || Math.abs(parseCell(cell, layout!.decimalComma)) >= OVER_RANGE) fail('non_finite', no, `column ${col} holds "${cell}" (not a finite number); the instrument was probably over range — record again with a larger range`);
     fail('not_a_number', no, cell === '' ? `column ${col} is empty; every row needs a number in every column` : `column ${col} holds "${cell.slice(0, 24)}", which is not a number; remove text from the data rows`);
   }
 
@@ -130,10 +132,12 @@ export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
       if (lineNo === 0 && rest === '' && chunk.length >= 4 && chunk[0] === 0x52 && chunk[1] === 0x49 && chunk[2] === 0x46 && chunk[3] === 0x46) {
         throw new CaptureFormatError('bad_magic', `${name}: this is a WAV file, not CSV; give it a .wav name`);
       }
+      // UTF-8 (a BOM is dropped) unless a UTF-16 byte-order mark says otherwise (some PC loggers).
+      decoder ??= new TextDecoder(chunk[0] === 0xff && chunk[1] === 0xfe ? 'utf-16le' : chunk[0] === 0xfe && chunk[1] === 0xff ? 'utf-16be' : 'utf-8');
       takeLines(decoder.decode(chunk, { stream: true }), false);
     },
     end(): Capture {
-      takeLines(decoder.decode(), true);
+      if (decoder) takeLines(decoder.decode(), true);
       if (head) {
         if (head.every((l) => l.trim() === '')) throw new CaptureFormatError('no_data', `${name}: the file is empty; export the capture again`);
         startData(true);

@@ -19,6 +19,8 @@ export function createCaptureParser(firstBytes: Uint8Array, options: ParseCaptur
   const name = options.name ?? 'capture';
   const magic = String.fromCharCode(...firstBytes.subarray(0, 4));
   if (magic === 'RIFF' || magic === 'RF64' || /\.wav$/i.test(name)) return createWavParser(name);
+  const utf16 = (firstBytes[0] === 0xff && firstBytes[1] === 0xfe) || (firstBytes[0] === 0xfe && firstBytes[1] === 0xff);
+  if (utf16) return createCsvParser({ name, timeUnit: options.timeUnit ?? null });
   let binary = 0;
   const probe = firstBytes.subarray(0, 512);
   for (const b of probe) if (b === 0 || (b < 9 && b !== 0)) binary++;

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { CaptureFormatError } from '../../../shared/formats/capture-format-error';
 import { createCsvParser } from '../../../shared/formats/csv-parser';
 import { type TimeUnit } from '../../../shared/formats/csv-cells';
+import { parseCaptureBytes } from '../../../shared/formats/parse-capture-stream';
 
 /**
  * The layouts bench scopes and data loggers write, each built here from strings with invented
@@ -170,5 +171,22 @@ describe('CSV layouts of bench scopes and loggers', () => {
   it('still reports text in a data cell with its line number in a key/value layout', () => {
     const text = lines(N, (i) => [i === 0 ? 'Sample Interval' : '', i === 0 ? '5e-05' : '', '', (i * 5e-5).toFixed(6), i === 900 ? 'over' : ref(i), pick(i)].join(',')).join('\n');
     expect(() => read(text)).toThrow(/line 901/);
+  });
+
+  it('reads a UTF-16LE export with its byte-order mark (chosen by parseCaptureBytes too)', () => {
+    const text = `\ufeffTime (s)\tA\tB\r\n${lines(N, (i) => `${(i * 1e-4).toFixed(4)}\t${ref(i)}\t${pick(i)}`).join('\r\n')}`;
+    const bytes = new Uint8Array(text.length * 2);
+    for (let i = 0; i < text.length; i++) { bytes[2 * i] = text.charCodeAt(i) & 255; bytes[2 * i + 1] = text.charCodeAt(i) >> 8; }
+    expectChannels(readBytes(bytes));
+    const cap = parseCaptureBytes(bytes, { name: 'logger.txt' });
+    expect(cap.sampleRateHz).toBeCloseTo(10_000, 6);
+  });
+
+  it('refuses the 9.9E+37 over-range marker as non_finite with its line', () => {
+    const text = `Time,A,B\n${lines(N, (i) => `${(i * 1e-4).toFixed(4)},${i === 1234 ? '9.9E+37' : ref(i)},${pick(i)}`).join('\n')}`;
+    let err: unknown;
+    try { read(text); } catch (e) { err = e; }
+    expect((err as CaptureFormatError).code).toBe('non_finite');
+    expect((err as Error).message).toMatch(/line 1236/);
   });
 });
