@@ -121,7 +121,7 @@ export function detectCsvLayout(lines: string[], name: string, timeUnitSetting: 
     const { cells } = rows[r];
     const has = (c: number) => (cells[c] ?? '') !== '';
     const filled = cols.slice(1).every(has) && (cols.length > 1 || has(cols[0]));
-    const kv = isPreambleKey(cells[cols[0]] ?? '') && (cols.length < 2 || isNumericCell(cells[cols[1]] ?? '', decimalComma));
+    const kv = isPreambleKey(cells[cols[0]] ?? '');
     if (!filled || kv || isDataRow(cells, cols)) break;
     above.unshift(rows[r]);
   }

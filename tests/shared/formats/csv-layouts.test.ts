@@ -189,4 +189,12 @@ describe('CSV layouts of bench scopes and loggers', () => {
     expect((err as CaptureFormatError).code).toBe('non_finite');
     expect((err as Error).message).toMatch(/line 1236/);
   });
+
+  it('reads a rate with its unit glued on (Sampling Rate,500kSa/s) above a channels-only header', () => {
+    const text = `Sampling Rate,500kSa/s\nCH1,CH2\n${lines(N, (i) => `${ref(i)},${pick(i)}`).join('\n')}`;
+    const cap = read(text);
+    expect(cap.sampleRateHz).toBeCloseTo(500_000, 3);
+    expect(cap.channelNames).toEqual(['CH1', 'CH2']);
+    expectChannels(cap);
+  });
 });
