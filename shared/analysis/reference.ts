@@ -1,6 +1,6 @@
 import { type AnalysisSettings } from '../schemas/analysis-settings';
 import { AnalysisInputError } from './analysis-input-error';
-import { detectPulses, fillHolesFromOther, medianSpacing, type Polarity, pulseLevels } from './reference-edges';
+import { detectPulses, fillHolesFromOther, medianSpacing, type Polarity, type PulseLevels, pulseLevels } from './reference-edges';
 import { repairPulses } from './repair-pulses';
 import { type Warning } from './types';
 import { wheelAngles } from './wheel';
@@ -90,6 +90,13 @@ export function extractReference(ref: Float32Array, sampleRateHz: number, s: Ana
           }
         }
       }
+      // An exhaust spark of the same polarity too weak for the trigger (under 30 % of the strong
+      // sparks): look again midway with a threshold just above the noise.
+      const weak = sameWeakPulses(ref, levels, level, polarity, times);
+      if (weak.length > 0) {
+        times = [...times, ...weak].sort((a, b) => a - b);
+        warnings.push({ code: 'wasted_spark_merged', message: `${weak.length} weak ${polarity} pulse${weak.length === 1 ? '' : 's'} midway between the reference pulses (a weak wasted spark) were used` });
+      }
     }
   }
 
@@ -127,6 +134,24 @@ export function extractReference(ref: Float32Array, sampleRateHz: number, s: Ana
     pulsesPerRev: isWheel ? teeth : ppc / 2, polarity, cycleOriginDeg, phaseResolved,
     ambiguityDeg: phaseResolved ? 720 : syncDeg, warnings,
   };
+}
+
+/**
+ * Weak same-polarity pulses midway between the detected ones, for a reference that should carry an
+ * even count per cycle: when most intervals hold one (a wasted spark of 6–30 % height), all those
+ * are returned; else the holes of about twice the spacing each take the one in their middle.
+ */
+function sameWeakPulses(ref: Float32Array, levels: PulseLevels, level: number, polarity: Polarity, times: number[]): number[] {
+  const weakLevel = Math.max(0.2 * level, 20 * levels.noise);
+  if (weakLevel >= 0.9 * level || times.length < 3) return [];
+  const spacing = medianSpacing(Float64Array.from(times));
+  const weak = Array.from(detectPulses(ref, levels.baseline, weakLevel, polarity, 0.3 * spacing).times);
+  const between = midwayOthers(times, weak);
+  if (between.length >= 0.7 * (times.length - 1)) return between;
+  const filled = fillHolesFromOther(times, weak);
+  if (filled.added === 0) return [];
+  const had = new Set(times);
+  return filled.times.filter((t) => !had.has(t));
 }
 
 function midwayCount(times: number[], strong: boolean[]): number {
