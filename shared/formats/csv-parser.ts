@@ -36,6 +36,8 @@ export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
   let time: GrowableFloat64 | null = null;
   let timeDecimals = 0;
   let timeExp = 0;
+  let firstTimeCell = '';
+  let lastTimeCell = '';
   let pendingCr = false;
 
   function fail(code: 'not_a_number' | 'ragged_row' | 'non_finite', line: number, msg: string): never {
@@ -73,6 +75,7 @@ export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
       if (!Number.isFinite(v)) { if (allEmpty(f)) return; badCell(cell, no, L.timeColumn! + 1); }
       time.push(v);
       if (time.length <= 4096) trackPrecision(cell);
+      lastTimeCell = cell;
     }
     const cc = L.channelColumns;
     for (let k = 0; k < cc.length; k++) {
@@ -88,7 +91,14 @@ export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
     fail('not_a_number', no, cell === '' ? `column ${col} is empty; every row needs a number in every column` : `column ${col} holds "${cell.slice(0, 24)}", which is not a number; remove text from the data rows`);
   }
 
+  /** Step of the last printed digit of a cell in scientific notation (`4.9999E+00` → 1e-4), else 0. */
+  function sciQuantum(cell: string): number {
+    const m = /^[+-]?\d*(?:[.,](\d*))?[eE]([+-]?\d+)$/.exec(cell);
+    return m ? Math.pow(10, Number(m[2]) - (m[1]?.length ?? 0)) : 0;
+  }
+
   function trackPrecision(cell: string) {
+    if (time!.length === 1) firstTimeCell = cell;
     const m = /^[+-]?\d*(?:[.,](\d*))?(?:[eE]([+-]?\d+))?$/.exec(cell);
     if (!m) return;
     const dec = m[1]?.length ?? 0;
@@ -154,7 +164,9 @@ export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
         sampleRateHz = 1 / (fit.intervalUnits * L.preambleIntervalS!);
         unitSource = 'preamble';
       } else if (time) {
-        const precision = Math.pow(10, -(timeDecimals - timeExp));
+        // Fixed-point columns: the finest step printed. Scientific notation with fixed significant
+        // digits: the step at the largest magnitude (first or last row) bounds every row's rounding.
+        const precision = Math.max(Math.pow(10, -(timeDecimals - timeExp)), sciQuantum(firstTimeCell), sciQuantum(lastTimeCell));
         const fit = fitSampleRate(time.toArray(), precision, name);
         let unitS = timeUnitFactor(L.timeUnit);
         const interval = L.preambleIntervalS;

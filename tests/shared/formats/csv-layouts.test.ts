@@ -197,4 +197,13 @@ describe('CSV layouts of bench scopes and loggers', () => {
     expect(cap.channelNames).toEqual(['CH1', 'CH2']);
     expectChannels(cap);
   });
+
+  it('accepts a time column in scientific notation with 5 significant digits (rounding above half a sample late in the record)', () => {
+    // 50 kHz over 3 s: 2.99998E+00 needs 6 digits; printed with 5 the rounding reaches 5e-5 s = 2.5 samples.
+    const n = 150_000;
+    const text = `Time,A,B\n${Array.from({ length: n }, (_, i) => `${(i * 2e-5).toExponential(4)},${ref(i)},${pick(i)}`).join('\n')}`;
+    const cap = read(text, null, 65536);
+    expect(cap.sampleRateHz).toBeCloseTo(50_000, 0);
+    expect(cap.channels[0].length).toBe(n);
+  });
 });
