@@ -142,3 +142,41 @@ export function fillHolesFromOther(times: readonly number[], others: readonly nu
   return { times: out, added };
 }
 
+/** Segment length of the wheel's level tracking, seconds (a dozen teeth even at cranking speed). */
+const LEVEL_SEGMENT_S = 0.05;
+
+/**
+ * A trigger-wheel signal with its slow level changes divided out, or null when the level holds
+ * within 1.5×. A variable-reluctance sensor's voltage grows with speed, so over a run-up the teeth
+ * at the slow end stay under a threshold set from the whole capture and are lost. The level is the
+ * median of the largest |x − baseline| of five neighbouring 50 ms segments (a glitch moves one),
+ * interpolated between segment centres and kept at least a tenth of the median level, so a
+ * stretch without teeth is not raised into the noise. Edge times are kept: the gain changes far
+ * more slowly than a tooth.
+ */
+export function levelledWheel(x: Float32Array, sampleRateHz: number, baseline: number): Float32Array | null {
+  const seg = Math.max(16, Math.round(LEVEL_SEGMENT_S * sampleRateHz));
+  const count = Math.floor(x.length / seg);
+  if (count < 5) return null;
+  const peaks = new Float64Array(count);
+  for (let k = 0; k < count; k++) {
+    let m = 0;
+    for (let i = k * seg; i < (k + 1) * seg; i++) { const v = Math.abs(x[i] - baseline); if (v > m) m = v; }
+    peaks[k] = m;
+  }
+  const level = new Float64Array(count);
+  for (let k = 0; k < count; k++) level[k] = median(peaks.subarray(Math.max(0, k - 2), Math.min(count, k + 3)));
+  const typical = median(level);
+  if (!(typical > 0)) return null;
+  let lo = Infinity, hi = 0;
+  for (let k = 0; k < count; k++) { level[k] = Math.max(level[k], 0.1 * typical); lo = Math.min(lo, level[k]); hi = Math.max(hi, level[k]); }
+  if (hi <= 1.5 * lo) return null;
+  const out = new Float32Array(x.length);
+  for (let i = 0; i < x.length; i++) {
+    const c = i / seg - 0.5;
+    const k = Math.max(0, Math.min(count - 2, Math.floor(c)));
+    const f = Math.max(0, Math.min(1, c - k));
+    out[i] = (x[i] - baseline) / (level[k] + f * (level[k + 1] - level[k]));
+  }
+  return out;
+}

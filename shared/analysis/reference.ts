@@ -1,6 +1,6 @@
 import { type AnalysisSettings } from '../schemas/analysis-settings';
 import { AnalysisInputError } from './analysis-input-error';
-import { detectPulses, fillHolesFromOther, medianSpacing, type Polarity, type PulseLevels, pulseLevels } from './reference-edges';
+import { detectPulses, fillHolesFromOther, levelledWheel, medianSpacing, type Polarity, type PulseLevels, pulseLevels } from './reference-edges';
 import { repairPulses } from './repair-pulses';
 import { type Warning } from './types';
 import { wheelAngles } from './wheel';
@@ -38,10 +38,12 @@ export function pulsesPerCycle(s: AnalysisSettings): number {
 /** Crank angle at each reference edge, with repair, wheel gaps and the cycle phase. */
 export function extractReference(ref: Float32Array, sampleRateHz: number, s: AnalysisSettings, cam: Float32Array | null): ReferenceResult {
   const warnings: Warning[] = [];
-  const levels = pulseLevels(ref, sampleRateHz);
+  const isWheel = s.refKind === 'wheel';
+  // A wheel's sensor voltage may change with speed: detect on the levelled signal then.
+  const x = (isWheel ? levelledWheel(ref, sampleRateHz, pulseLevels(ref, sampleRateHz).baseline) : null) ?? ref;
+  const levels = pulseLevels(x, sampleRateHz);
   const polarity: Polarity = s.refPolarity === 'auto' ? (levels.rising >= levels.falling ? 'rising' : 'falling') : s.refPolarity;
   const level = polarity === 'rising' ? levels.rising : levels.falling;
-  const isWheel = s.refKind === 'wheel';
   const [teeth, missing] = s.wheel.split('-').map(Number);
   const ppc = isWheel ? 2 * teeth : pulsesPerCycle(s);
   const noRef = (found: number) => new AnalysisInputError('no_reference',
@@ -49,10 +51,10 @@ export function extractReference(ref: Float32Array, sampleRateHz: number, s: Ana
   if (!(level > 0) || (!isWheel && level < 4 * levels.noise)) throw noRef(0);
   const fs = sampleRateHz;
   const dead1 = 0.5 * fs * (120 / s.maxRpm) / ppc;
-  let pulses = detectPulses(ref, levels.baseline, level, polarity, dead1);
+  let pulses = detectPulses(x, levels.baseline, level, polarity, dead1);
   if (pulses.times.length >= 4) {
     const dead2 = Math.max(dead1, 0.4 * medianSpacing(pulses.times));
-    pulses = detectPulses(ref, levels.baseline, level, polarity, dead2);
+    pulses = detectPulses(x, levels.baseline, level, polarity, dead2);
   }
   let times = Array.from(pulses.times);
   let heights = Array.from(pulses.heights);
@@ -75,7 +77,7 @@ export function extractReference(ref: Float32Array, sampleRateHz: number, s: Ana
       const oLevel = other === 'rising' ? levels.rising : levels.falling;
       const ownDead = 0.4 * medianSpacing(Float64Array.from(times));
       if (oLevel >= Math.max(0.1 * level, 6 * levels.noise) && times.length >= 3) {
-        const op = detectPulses(ref, levels.baseline, oLevel, other, ownDead);
+        const op = detectPulses(x, levels.baseline, oLevel, other, ownDead);
         const between = midwayOthers(times, Array.from(op.times));
         if (between.length >= 0.7 * (times.length - 1) && medianSpacing(Float64Array.from(times)) > 1.6 * medianSpacingOfMerged(times, between)) {
           times = [...times, ...between].sort((a, b) => a - b);
@@ -92,7 +94,7 @@ export function extractReference(ref: Float32Array, sampleRateHz: number, s: Ana
       }
       // An exhaust spark of the same polarity too weak for the trigger (under 30 % of the strong
       // sparks): look again midway with a threshold just above the noise.
-      const weak = sameWeakPulses(ref, levels, level, polarity, times);
+      const weak = sameWeakPulses(x, levels, level, polarity, times);
       if (weak.length > 0) {
         times = [...times, ...weak].sort((a, b) => a - b);
         warnings.push({ code: 'wasted_spark_merged', message: `${weak.length} weak ${polarity} pulse${weak.length === 1 ? '' : 's'} midway between the reference pulses (a weak wasted spark) were used` });

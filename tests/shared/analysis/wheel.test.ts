@@ -1,5 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { wheelAngles } from '../../../shared/analysis/wheel';
+import { extractReference } from '../../../shared/analysis/reference';
+import { resolveSettings } from '../../../shared/analysis/resolve-settings';
+import { crankAngle, crankSpeed } from '../../../shared/analysis/crank-speed';
+import { wheelSignal } from '../../helpers/signals';
 
 // Trigger wheels [common practice, REFERENCES.md §5]: an "N-M" wheel has N tooth positions on a
 // 360/N° pitch with M teeth missing; the gap spans M + 1 pitches and marks the same angle on every
@@ -48,5 +52,27 @@ describe('trigger-wheel gaps and angles', () => {
     const warning = w.warnings.find((x) => x.code === 'reference_undersampled');
     expect(warning?.message).toMatch(/2\.9 samples apart/);
     expect(warning?.message).toMatch(/at least 21 kHz/);
+  });
+});
+
+describe('variable-reluctance wheel over a run-up (sensor voltage grows with speed)', () => {
+  it('finds every tooth from 600 to 4200 rpm though the slow teeth are a seventh of the fast ones', () => {
+    const fs = 24_000;
+    const n = 3 * fs;
+    const f0 = 600 / 60, f1 = 4200 / 60, T = n / fs;
+    const theta = Float64Array.from({ length: n }, (_, i) => { const t = i / fs; return 360 * (f0 * t + ((f1 - f0) * t * t) / (2 * T)); });
+    const square = wheelSignal(theta, 36, 1, 0);
+    const ref = Float32Array.from(square, (v, i) => (v * (f0 + ((f1 - f0) * i) / n)) / f1);
+    let rises = 0;
+    for (let i = 1; i < n; i++) if (square[i] > 0.5 && square[i - 1] <= 0.5) rises++;
+    const r = extractReference(ref, fs, resolveSettings({ refKind: 'wheel', wheel: '36-1' }), null);
+    expect(r.repairedEdges).toBe(0);
+    expect(Math.abs(r.edges - rises)).toBeLessThanOrEqual(1);
+    const firstS = r.timesS[0], lastS = r.timesS[r.timesS.length - 1];
+    // Speed over the edges' own span against θ(t) over the same span.
+    const at = (s: number) => 360 * (f0 * s + ((f1 - f0) * s * s) / (2 * T));
+    const spanRpm = (60 * (at(lastS) - at(firstS))) / 360 / (lastS - firstS);
+    expect(Math.abs(crankSpeed(r, crankAngle(r), T).meanRpm / spanRpm - 1)).toBeLessThan(0.001);
+    expect(firstS).toBeLessThan(0.2);
   });
 });
