@@ -47,13 +47,37 @@ function int(flag: string, v: string): number {
   return x;
 }
 
+/** A value that starts with a minus sign: a negative number or a list that starts with one. */
+const NEGATIVE_VALUE = /^-(\d|\.\d)/;
+
+/**
+ * Joins `--flag -30` into `--flag=-30` for flags that take a value: util.parseArgs refuses a value
+ * that starts with "-" as ambiguous, yet a TDC offset before the reference edge or an inverting
+ * channel scale is negative.
+ */
+function joinNegativeValues(argv: string[], valued: ReadonlySet<string>): string[] {
+  const out: string[] = [];
+  for (let i = 0; i < argv.length; i++) {
+    const a = argv[i];
+    const next = argv[i + 1];
+    if (a.startsWith('--') && !a.includes('=') && valued.has(a.slice(2)) && next !== undefined && NEGATIVE_VALUE.test(next)) {
+      out.push(`${a}=${next}`);
+      i++;
+    } else {
+      out.push(a);
+    }
+  }
+  return out;
+}
+
 /** Parses argv (without node and script) into the capture path, flags and partial settings. */
 export function parseAnalyzeArgs(argv: string[]): AnalyzeArgs {
   const str = { type: 'string' as const };
+  const valued = new Set(['drive', ...Object.values(FLAG_OF_FIELD).map((f) => f.slice(2))]);
   let parsed;
   try {
     parsed = parseArgs({
-      args: argv,
+      args: joinNegativeValues(argv, valued),
       allowPositionals: true,
       strict: true,
       options: {
