@@ -48,7 +48,11 @@ export function extractReference(ref: Float32Array, sampleRateHz: number, s: Ana
   const ppc = isWheel ? 2 * teeth : pulsesPerCycle(s);
   const noRef = (found: number) => new AnalysisInputError('no_reference',
     `found ${found} reference pulse${found === 1 ? '' : 's'} on channel ${s.refChannel}; check --ref-channel, --ref-kind and the reference lead`);
-  if (!(level > 0) || (!isWheel && level < 4 * levels.noise)) throw noRef(0);
+  if (!(level > 0)) throw noRef(0);
+  if (!isWheel && level < 4 * levels.noise) {
+    throw new AnalysisInputError('no_reference',
+      `the largest pulses on channel ${s.refChannel} stand only ${(level / levels.noise).toFixed(1)}× above its noise (4× needed): no reference pulses found; check --ref-channel and the reference lead (clip it nearer the coil, or set a more sensitive range for that channel)`);
+  }
   const fs = sampleRateHz;
   const dead1 = 0.5 * fs * (120 / s.maxRpm) / ppc;
   let pulses = detectPulses(x, levels.baseline, level, polarity, dead1);

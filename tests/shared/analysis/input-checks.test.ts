@@ -26,6 +26,15 @@ describe('pipeline input checks found by the variety sweep', () => {
     expect((caught as AnalysisInputError | null)?.code).toBe('channel_conflict');
   });
 
+  it('a reference channel of noise only says how far its pulses stand above the noise', () => {
+    const noise = Float32Array.from({ length: n }, (_, i) => Math.sin(i * 12.9898) * 43758.5453 % 1);
+    let caught: unknown = null;
+    try { runPipeline({ channels: [noise, pickup], sampleRateHz: fs }, resolveSettings({})); } catch (e) { caught = e; }
+    expect(caught).toBeInstanceOf(AnalysisInputError);
+    expect((caught as AnalysisInputError).code).toBe('no_reference');
+    expect((caught as Error).message).toMatch(/channel 1 stand only \d\.\d× above its noise/);
+  });
+
   it('warns when a reference told 8 pulses per cycle carries 1 (firing line at 8× the firing order)', () => {
     const wrong = runPipeline({ channels: [ref, pickup], sampleRateHz: fs }, resolveSettings({ cylinders: 4, refPerCycle: 8, firingOrder: [1, 3, 4, 2] }));
     expect(wrong.orders.peaks[0].engineOrder).toBe(16);
