@@ -151,6 +151,11 @@ function sameWeakPulses(ref: Float32Array, levels: PulseLevels, level: number, p
   const weakLevel = Math.max(0.2 * level, 20 * levels.noise);
   if (weakLevel >= 0.9 * level || times.length < 3) return [];
   const spacing = medianSpacing(Float64Array.from(times));
+  // A first look over the first 64 intervals spares the whole pass on the usual clean train.
+  const head = times.slice(0, 65);
+  const headEnd = Math.min(ref.length, Math.ceil(head[head.length - 1]) + 1);
+  const headWeak = Array.from(detectPulses(ref.subarray(0, headEnd), levels.baseline, weakLevel, polarity, 0.3 * spacing).times);
+  if (midwayOthers(head, headWeak).length === 0 && fillHolesFromOther(head, headWeak).added === 0) return [];
   const weak = Array.from(detectPulses(ref, levels.baseline, weakLevel, polarity, 0.3 * spacing).times);
   const between = midwayOthers(times, weak);
   if (between.length >= 0.7 * (times.length - 1)) return between;
