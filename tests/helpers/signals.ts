@@ -3,17 +3,12 @@
  * crank-angle profiles with slow wander, and reference pulse trains of every kind drawn from a
  * known θ(t). Angles in degrees, times in seconds.
  */
+import { createRng } from '../../shared/synth/prng';
 
-/** Mulberry32: a tiny seeded PRNG (uniform in [0, 1)). */
+/** Seeded uniforms in [0, 1): the generator's mulberry32 (shared/synth/prng.ts), so there is one PRNG. */
 export function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const source = createRng(seed);
+  return () => source.uniform();
 }
 
 /** Standard normal samples (Box–Muller). */

@@ -4,20 +4,15 @@
  * chosen orders drawn with the Hann window's main-lobe shape, and a running-median-like floor.
  */
 import type { EnvelopeBand, OrderSpectrum, RankingInput } from '../../../shared/analysis/types';
+import { createRng } from '../../../shared/synth/prng';
 
 /** A line to draw: order and SNR over the floor in dB. */
 export interface SynthLine { order: number; snrDb: number }
 
-/** Small seeded PRNG (mulberry32). */
+/** Seeded uniforms in [0, 1): the generator's mulberry32 (shared/synth/prng.ts), so there is one PRNG. */
 export function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const source = createRng(seed);
+  return () => source.uniform();
 }
 
 function hannLobe(deltaBins: number): number {
