@@ -1,7 +1,13 @@
 // Sign-in rate limit keyed on client IP + lower-cased e-mail: only failed attempts count, so a shop
 // signing many people in from one address (or a test suite) is never throttled.
-import type { RequestHandler } from 'express';
+import type { Request, RequestHandler } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+
+/** Client IP (IPv6 folded to its /56 subnet by express-rate-limit) + the lower-cased e-mail of the body. */
+function ipAndEmailKey(req: Request): string {
+  const email = typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase() : '';
+  return `${ipKeyGenerator(req.ip ?? '')}|${email}`;
+}
 
 /** At most `maxFailures` failed sign-ins per IP + e-mail per `windowMin` minutes; then 429 `too_many_attempts`. */
 export function signInLimit(maxFailures: number, windowMin: number): RequestHandler {
@@ -11,10 +17,7 @@ export function signInLimit(maxFailures: number, windowMin: number): RequestHand
     skipSuccessfulRequests: true,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    keyGenerator: (req) => {
-      const email = typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase() : '';
-      return `${ipKeyGenerator(req.ip ?? '')}|${email}`;
-    },
+    keyGenerator: ipAndEmailKey,
     handler: (_req, res) => {
       res.status(429).json({
         error: {
@@ -36,10 +39,7 @@ export function resetRequestLimit(max = 5, windowMin = 15): RequestHandler {
     limit: max,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    keyGenerator: (req) => {
-      const email = typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase() : '';
-      return `${ipKeyGenerator(req.ip ?? '')}|${email}`;
-    },
+    keyGenerator: ipAndEmailKey,
     handler: (_req, res) => {
       res.status(429).json({
         error: { code: 'too_many_attempts', message: `Too many reset requests for this address; wait ${windowMin} minutes and check your mail` },
