@@ -69,6 +69,12 @@ export function detectPulses(x: Float32Array, baseline: number, level: number, p
   while (i < n && sign * (x[i] - baseline) >= lo) i++;
   armed = true;
   for (; i < n; i++) {
+    if (armed) {
+      // Armed means the dead time is over: skip to the next sample at or above the high threshold
+      // (one tight loop per polarity; the same comparisons as sign·(x − baseline) ≥ hi).
+      i = sign === 1 ? nextAtOrAbove(x, i, baseline, hi) : nextAtOrBelow(x, i, baseline, hi);
+      if (i >= n) break;
+    }
     const y = sign * (x[i] - baseline);
     if (!armed) {
       if (y < lo && i - last >= deadSamples) armed = true;
@@ -100,6 +106,20 @@ export function detectPulses(x: Float32Array, baseline: number, level: number, p
     }
   }
   return { times: Float64Array.from(times), heights: Float64Array.from(heights), polarity, level };
+}
+
+/** First index ≥ i where x − baseline ≥ level (x.length when none). */
+function nextAtOrAbove(x: Float32Array, i: number, baseline: number, level: number): number {
+  const n = x.length;
+  while (i < n && !(x[i] - baseline >= level)) i++;
+  return i;
+}
+
+/** First index ≥ i where baseline − x ≥ level, i.e. −(x − baseline) ≥ level (x.length when none). */
+function nextAtOrBelow(x: Float32Array, i: number, baseline: number, level: number): number {
+  const n = x.length;
+  while (i < n && !(-(x[i] - baseline) >= level)) i++;
+  return i;
 }
 
 /** Median spacing of pulse times (samples). */
