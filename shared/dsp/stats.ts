@@ -14,9 +14,15 @@ export function quantile(values: ArrayLike<number>, p: number): number {
   const lo = select(a, i);
   if (f === 0 || i + 1 >= a.length) return lo;
   // After select(a, i) every element right of i is ≥ a[i]: the next order statistic is their minimum.
-  let next = Infinity;
-  for (let k = i + 1; k < a.length; k++) if (a[k] < next) next = a[k];
-  return lo * (1 - f) + next * f;
+  return lo * (1 - f) + minFrom(a, i + 1) * f;
+}
+
+/** Smallest element of a[from…] (its own function: quantile then has no loop of its own to be
+ * compiled mid-call, which left the interpolation without type feedback and deoptimised it). */
+function minFrom(a: Float64Array, from: number): number {
+  let m = Infinity;
+  for (let k = from; k < a.length; k++) if (a[k] < m) m = a[k];
+  return m;
 }
 
 /** Rearranges a so that a[k] is the k-th smallest (Hoare's selection, median-of-three pivot). */
