@@ -40,15 +40,23 @@ export function pulseLevels(x: Float32Array, sampleRateHz: number): PulseLevels 
   for (let j = 0; j < sub.length; j++) sub[j] = Math.abs(sub[j] - baseline);
   const noise = 1.4826 * median(sub);
   const seg = Math.max(16, Math.min(Math.round(0.5 * sampleRateHz), Math.floor(x.length / 4)));
-  const maxs: number[] = [];
-  const mins: number[] = [];
-  for (let s = 0; s + seg <= x.length; s += seg) {
+  const segments = Math.floor(x.length / seg);
+  const maxs = new Float64Array(segments);
+  const mins = new Float64Array(segments);
+  segmentExtremes(x, seg, baseline, maxs, mins);
+  return { baseline, rising: median(maxs), falling: median(mins), noise };
+}
+
+/** Per whole segment of `seg` samples: its maximum above and its minimum below the baseline.
+ * One tight loop of its own, so it is compiled once with full type feedback. */
+function segmentExtremes(x: Float32Array, seg: number, baseline: number, maxs: Float64Array, mins: Float64Array): void {
+  for (let k = 0; k < maxs.length; k++) {
+    const s = k * seg;
     let hi = -Infinity, lo = Infinity;
     for (let i = s; i < s + seg; i++) { const v = x[i]; if (v > hi) hi = v; if (v < lo) lo = v; }
-    maxs.push(hi - baseline);
-    mins.push(baseline - lo);
+    maxs[k] = hi - baseline;
+    mins[k] = baseline - lo;
   }
-  return { baseline, rising: median(maxs), falling: median(mins), noise };
 }
 
 /**
