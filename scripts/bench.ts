@@ -120,8 +120,11 @@ share one FFT per block, and their blocks stop overlapping once 16 whole blocks 
 is steady by then; the overlap only doubled the 64k-point FFTs); the cycle-normalised spectral
 kurtosis keeps its frame powers rather than running a second STFT pass; the high-rate residual has
 only the samples per revolution the usable band needs; band choice and the cycle view look at a
-bounded number of blocks and cycles; the CLI is one esbuild bundle that loads only fft.js and zod
-from node_modules.
+bounded number of blocks and cycles; the reference pulse search skips to the next threshold
+crossing in one tight loop per polarity; long scans sit in small functions of their own, so V8
+compiles them once with type feedback instead of deoptimising them mid-call (the quantile's
+interpolation was deoptimised 13 times per run); the CLI is one esbuild bundle that loads only
+fft.js and zod from node_modules.
 `;
   writeFileSync('docs/performance.md', doc);
   process.stdout.write(`\n${table}\n\ngrowth 10 s → 60 s: ${growth.toFixed(2)}× (n log n: ${bound.toFixed(2)}×); wrote docs/performance.md\n`);
