@@ -127,6 +127,16 @@ function cycleNormalisedKurtosis(x: Float64Array, options: StftOptions, position
     row++;
     for (let k = 0; k < bins; k++) { const v = p[k]; mean[o + k] += v; r2[k] += v; r4[k] += v * v; }
   });
+  return kurtosisFromStored(stored, position, frames, bins, mean, count, positions, r2, r4);
+}
+
+/**
+ * The second half of cycleNormalisedKurtosis (its own function, so V8 compiles it with feedback
+ * instead of deoptimising the caller when it first reaches these loops): means per position from
+ * the sums, then min(plain, normalised) kurtosis per bin.
+ */
+function kurtosisFromStored(stored: Float64Array, position: Int32Array, frames: number, bins: number, mean: Float64Array, count: Float64Array,
+  positions: number, r2: Float64Array, r4: Float64Array): Float64Array {
   for (let q = 0; q < positions; q++) for (let k = 0; k < bins; k++) mean[q * bins + k] = mean[q * bins + k] / Math.max(1, count[q]) + 1e-300;
   const s2 = new Float64Array(bins);
   const s4 = new Float64Array(bins);

@@ -34,14 +34,27 @@ export function visitStftPower(x: ArrayLike<number>, options: StftOptions, plans
   let used = 0;
   for (let f = 0; f < frames; f += stride) {
     const s = f * hop;
-    for (let i = 0; i < frameSize; i++) frame[i] = x[s + i] * w[i];
+    windowFrame(frame, x, s, w);
     plan.fft.realTransform(plan.work, frame);
-    const o = plan.work;
-    for (let k = 0; k <= frameSize / 2; k++) power[k] = o[2 * k] * o[2 * k] + o[2 * k + 1] * o[2 * k + 1];
+    halfSpectrumPower(plan.work, power);
     visit(f, power);
     used++;
   }
   return used;
+}
+
+// The loops of a frame sit in small functions of their own: V8 then compiles them once with type
+// feedback, whichever callback visitStftPower was last called with (a new callback deoptimised the
+// whole frame loop, which then boxed every product while it ran unoptimised).
+
+/** frame[i] = x[s + i]·w[i]. */
+function windowFrame(frame: Float64Array, x: ArrayLike<number>, s: number, w: Float64Array): void {
+  for (let i = 0; i < frame.length; i++) frame[i] = x[s + i] * w[i];
+}
+
+/** power[k] = |X[k]|² for k = 0..power.length − 1, from interleaved complex bins. */
+function halfSpectrumPower(o: Float64Array, power: Float64Array): void {
+  for (let k = 0; k < power.length; k++) power[k] = o[2 * k] * o[2 * k] + o[2 * k + 1] * o[2 * k + 1];
 }
 
 /** Amplitude STFT (frames × (frameSize/2 + 1), row-major float32). */
