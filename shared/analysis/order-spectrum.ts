@@ -23,18 +23,31 @@ export function orderSpectrum(x: Float64Array, samplesPerRev: number, revsPerBlo
   const frame = new Float64Array(n);
   const out = plan.work;
   for (let b = 0; b < blocks; b++) {
-    const s = b * hop;
-    let m = 0;
-    for (let i = 0; i < n; i++) m += x[s + i];
-    m /= n;
-    for (let i = 0; i < n; i++) frame[i] = (x[s + i] - m) * w[i];
+    demeanedWindowedBlock(frame, x, b * hop, w);
     plan.fft.realTransform(out, frame);
-    for (let k = 0; k < bins; k++) acc[k] += out[2 * k] * out[2 * k] + out[2 * k + 1] * out[2 * k + 1];
+    addPower(out, acc);
   }
   const scale = 2 / (n * coherentGain(w));
   const amplitude = new Float64Array(bins);
   for (let k = 0; k < bins; k++) amplitude[k] = Math.sqrt(acc[k] / blocks) * scale;
   return finishSpectrum(amplitude, revsPerBlock, maxOrder, samplesPerRev, blocks);
+}
+
+// The block loops sit in small functions of their own, so V8 compiles them once with type
+// feedback instead of running orderSpectrum's single call unoptimised until on-stack replacement.
+
+/** frame[i] = (x[s + i] − mean of the block)·w[i]. */
+function demeanedWindowedBlock(frame: Float64Array, x: Float64Array, s: number, w: Float64Array): void {
+  const n = frame.length;
+  let m = 0;
+  for (let i = 0; i < n; i++) m += x[s + i];
+  m /= n;
+  for (let i = 0; i < n; i++) frame[i] = (x[s + i] - m) * w[i];
+}
+
+/** acc[k] += |X[k]|² for the first acc.length bins of interleaved complex `out`. */
+function addPower(out: Float64Array, acc: Float64Array): void {
+  for (let k = 0; k < acc.length; k++) acc[k] += out[2 * k] * out[2 * k] + out[2 * k + 1] * out[2 * k + 1];
 }
 
 /** Adds the running-median floor (width about 2 orders, at least 15 bins). */
