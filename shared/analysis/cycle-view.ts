@@ -86,11 +86,9 @@ export function cycleView(input: CycleInput): CycleResult {
       for (let pos = 0; pos < positions; pos++) {
         const s = base + pos * hop;
         if (s + frame > x.length) break;
-        for (let i = 0; i < frame; i++) buf[i] = (x[s + i] - (s + i > 0 ? x[s + i - 1] : x[s + i])) * w[i];
+        differencedWindowedFrame(buf, x, s, w);
         plan.fft.realTransform(plan.work, buf);
-        const o = pos * bins;
-        const wk = plan.work;
-        for (let k = 2; k < bins; k++) power[o + k] += Math.log(wk[2 * k] * wk[2 * k] + wk[2 * k + 1] * wk[2 * k + 1] + 1e-300);
+        addLogPower(plan.work, power, pos * bins, bins);
         perPos[pos]++;
       }
     }
@@ -195,4 +193,17 @@ function coherentEvent(average: Float64Array, perDeg: number): { ratio: number; 
   let onset = top;
   for (let j = 1; j <= 6; j++) { const d = (top - j + 720) % 720; if (energy[d] >= 0.3 * energy[top]) onset = d; else break; }
   return { ratio: med > 0 ? smooth[best] / med : 0, angleDeg: onset + 0.5 };
+}
+
+// The per-frame loops sit in small functions of their own, so V8 compiles them once with type
+// feedback instead of running cycleView's single call unoptimised until on-stack replacement.
+
+/** buf[i] = (x[s + i] − x[s + i − 1])·w[i] (first difference; x[−1] counts as x[0]). */
+function differencedWindowedFrame(buf: Float64Array, x: Float64Array, s: number, w: Float64Array): void {
+  for (let i = 0; i < buf.length; i++) buf[i] = (x[s + i] - (s + i > 0 ? x[s + i - 1] : x[s + i])) * w[i];
+}
+
+/** power[o + k] += ln |X[k]|² for k = 2..bins − 1, from interleaved complex `wk`. */
+function addLogPower(wk: Float64Array, power: Float64Array, o: number, bins: number): void {
+  for (let k = 2; k < bins; k++) power[o + k] += Math.log(wk[2 * k] * wk[2 * k] + wk[2 * k + 1] * wk[2 * k + 1] + 1e-300);
 }
