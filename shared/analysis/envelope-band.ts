@@ -125,9 +125,14 @@ function cycleNormalisedKurtosis(x: Float64Array, options: StftOptions, position
     position[row] = q;
     stored.set(p, row * bins);
     row++;
-    for (let k = 0; k < bins; k++) { const v = p[k]; mean[o + k] += v; r2[k] += v; r4[k] += v * v; }
+    addFramePower(p, mean, o, r2, r4);
   });
   return kurtosisFromStored(stored, position, frames, bins, mean, count, positions, r2, r4);
+}
+
+/** mean[o + k] += p[k], r2[k] += p[k], r4[k] += p[k]² (its own function: compiled once with feedback). */
+function addFramePower(p: Float64Array, mean: Float64Array, o: number, r2: Float64Array, r4: Float64Array): void {
+  for (let k = 0; k < p.length; k++) { const v = p[k]; mean[o + k] += v; r2[k] += v; r4[k] += v * v; }
 }
 
 /**
