@@ -39,8 +39,8 @@ function markerLabel(pl: PartLine): string {
 }
 
 /** Lines drawn for a part: its main lines always, everything for the focused part. */
-function drawn(pl: PartLine, spectrum: 'orders' | 'envelope', focus: string | null | undefined): boolean {
-  if (pl.component === focus) return true;
+function drawn(pl: PartLine, spectrum: 'orders' | 'envelope', focus: string | null | undefined, exportMode = false): boolean {
+  if (pl.component === focus) return !exportMode || pl.line.sideband === 0;
   if (spectrum === 'orders') return pl.line.harmonic >= 1 && pl.line.harmonic <= 2 && pl.line.sideband === 0;
   return pl.line.harmonic === 1 && pl.line.sideband === 0;
 }
@@ -62,7 +62,7 @@ function partSeries(
   focus: string | null | undefined, pad: number, exportMode: boolean,
 ): SeriesOption {
   const color = partColor(index);
-  const lines = pl.filter((x) => drawn(x, spectrum, focus));
+  const lines = pl.filter((x) => drawn(x, spectrum, focus, exportMode));
   const approximate = pl[0]?.approximate ?? false;
   const markLine: MarkLineComponentOption = {
     symbol: 'none',
@@ -86,10 +86,12 @@ function partSeries(
 
 function engineSeries(maxOrder: number, cylinders: number, resolution: number, axis: number, exportMode: boolean): SeriesOption {
   const half = Math.max(resolution, 0.02);
+  let labelled = 0;
   const data = engineOrders(maxOrder, cylinders).map((e) => [
     {
       xAxis: e.order - half,
-      name: e.firing ? 'engine' : '',
+      // The first few firing orders carry the word; the shading says the rest.
+      name: e.firing && (labelled += 1) <= 3 ? 'engine' : '',
       itemStyle: { color: e.firing ? PLOT_COLORS.firingBand : PLOT_COLORS.engineBand },
     },
     { xAxis: e.order + half },
@@ -138,8 +140,8 @@ export function ordersOption(input: OrdersPlotInput): EChartsOption {
   const nameText = { color: PLOT_COLORS.mutedText, fontFamily: PLOT_SANS, fontSize: exportMode ? 9 : 12 };
   const splitLine = { lineStyle: { color: PLOT_COLORS.grid } };
   const grids = hasEnvelope
-    ? [{ left: 64, right: 24, top: exportMode ? 34 : 44, height: '36%' }, { left: 64, right: 24, top: '56%', bottom: exportMode ? 34 : 72 }]
-    : [{ left: 64, right: 24, top: exportMode ? 34 : 44, bottom: exportMode ? 34 : 72 }];
+    ? [{ left: 64, right: 24, top: exportMode ? 62 : 64, height: '32%' }, { left: 64, right: 24, top: '58%', bottom: exportMode ? 34 : 72 }]
+    : [{ left: 64, right: 24, top: exportMode ? 62 : 64, bottom: exportMode ? 34 : 72 }];
   const axes = grids.map((_, i) => i);
   const xAxis = axes.map((i) => ({
     type: 'value' as const, gridIndex: i, min: 0, max: exportMode ? viewMax : maxOrder,
@@ -171,6 +173,8 @@ export function ordersOption(input: OrdersPlotInput): EChartsOption {
     series.push(engineSeries(exportMode ? viewMax : maxOrder, input.cylinders, input.envelope.resolution, 1, exportMode));
   }
   input.candidates.forEach((c, index) => {
+    // The report's plot shows only the confirmed part's markers, to stay readable on paper.
+    if (exportMode && input.focus && c.component !== input.focus) return;
     const own = (lines: readonly PartLine[]) => lines.filter((l) => l.component === c.component);
     series.push(partSeries(own(ordersLines), index, c.component, 0, 'orders', input.focus, input.orders.resolution, exportMode));
     if (hasEnvelope) series.push(partSeries(own(envelopeLines), index, c.component, 1, 'envelope', input.focus, input.envelope!.resolution, exportMode));
@@ -187,7 +191,10 @@ export function ordersOption(input: OrdersPlotInput): EChartsOption {
       type: exportMode ? 'plain' : 'scroll', top: 4, left: 64, right: 24,
       textStyle: { color: PLOT_COLORS.text, fontSize: exportMode ? 9 : 12 },
       pageTextStyle: { color: PLOT_COLORS.text }, inactiveColor: '#5c646f',
-      data: ['Order spectrum', ...(hasEnvelope ? ['Envelope spectrum'] : []), ...input.candidates.map((c) => c.component), 'Engine orders (likely engine vibration)'],
+      data: ['Order spectrum', ...(hasEnvelope ? ['Envelope spectrum'] : []),
+        ...input.candidates.filter((c) => !exportMode || !input.focus || c.component === input.focus).map((c) => c.component), 'Engine orders (likely engine vibration)'],
+      // With a focus (the suspect being reviewed) the other parts start hidden; a click on the legend shows them.
+      selected: exportMode || !input.focus ? undefined : Object.fromEntries(input.candidates.filter((c) => c.component !== input.focus).map((c) => [c.component, false])),
     },
   };
   if (!exportMode) {

@@ -24,7 +24,7 @@ export function partColor(index: number): string {
   return PLOT_COLORS.parts[index % PLOT_COLORS.parts.length]!;
 }
 
-/** Monospace stack for the numbers on axes and labels (the shipped JetBrains Mono first). */
-export const PLOT_MONO = '"JetBrains Mono", ui-monospace, monospace';
+/** Monospace stack for the numbers on axes and labels (the shipped JetBrains Mono first; unquoted, since echarts' SVG writes it into a style attribute as is). */
+export const PLOT_MONO = 'JetBrains Mono, ui-monospace, monospace';
 /** Text stack (the shipped Inter first). */
 export const PLOT_SANS = 'Inter, ui-sans-serif, system-ui, sans-serif';
