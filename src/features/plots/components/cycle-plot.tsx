@@ -2,7 +2,7 @@ import { useMemo } from 'react';
 import type { CycleEvent } from '../../../../shared/analysis/types';
 import { cycleCsvRows, cycleEventText, cycleOption } from '../../../../shared/plots/cycle-option';
 import { Caution } from '../../../components/ui/states';
-import { PlotCard } from './plot-card';
+import { PlotCard } from '../../../components/charts/plot-card';
 
 export interface CyclePlotProps {
   averageDeg: ArrayLike<number>;

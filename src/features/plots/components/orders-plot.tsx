@@ -5,8 +5,8 @@ import { linesOf, strongestUnexplained } from '../../../../shared/plots/candidat
 import { ordersCsvRows, ordersOption } from '../../../../shared/plots/orders-option';
 import type { SpectrumData } from '../../../../shared/plots/spectrum-data';
 import { Caution } from '../../../components/ui/states';
-import { PlotCard } from './plot-card';
-import { Segmented } from './segmented';
+import { PlotCard } from '../../../components/charts/plot-card';
+import { Segmented } from '../../../components/charts/segmented';
 
 export interface OrdersPlotProps {
   orders: SpectrumData & { peaks?: readonly Peak[] };

@@ -1,6 +1,6 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { spectrogramCsvRows, spectrogramOption, spectrogramPixels, type SpectrogramData } from '../../../../shared/plots/spectrogram-option';
-import { PlotCard } from './plot-card';
+import { PlotCard } from '../../../components/charts/plot-card';
 
 const HEIGHT = 420;
 

@@ -2,7 +2,7 @@ import type { EChartsType } from 'echarts';
 import { useEffect, useMemo, useRef } from 'react';
 import { speedCsvRows, speedOption } from '../../../../shared/plots/speed-option';
 import { PLOT_COLORS } from '../../../../shared/plots/palette';
-import { PlotCard } from './plot-card';
+import { PlotCard } from '../../../components/charts/plot-card';
 
 export interface SpeedStats {
   meanRpm: number;

@@ -1,6 +1,6 @@
 import type { EChartsOption, EChartsType } from 'echarts';
 import ReactEChartsCore from 'echarts-for-react/esm/core';
-import { echarts } from '../lib/echarts-core';
+import { echarts } from './echarts-core';
 
 export interface EChartProps {
   option: EChartsOption;

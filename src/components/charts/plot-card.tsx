@@ -1,12 +1,12 @@
 import type { EChartsOption, EChartsType } from 'echarts';
 import { lazy, Suspense, useRef, type ReactNode } from 'react';
-import { PLOT_COLORS } from '../../../../shared/plots/palette';
-import { fileSlug, toCsv } from '../../../../shared/plots/csv';
-import { Button } from '../../../components/ui/button';
-import { Card } from '../../../components/ui/card';
-import { ErrorBoundary } from '../../../components/ui/error-boundary';
-import { LoadingState } from '../../../components/ui/spinner';
-import { downloadText, downloadUrl } from '../../../lib/download';
+import { PLOT_COLORS } from '../../../shared/plots/palette';
+import { fileSlug, toCsv } from '../../../shared/plots/csv';
+import { Button } from '../ui/button';
+import { Card } from '../ui/card';
+import { ErrorBoundary } from '../ui/error-boundary';
+import { LoadingState } from '../ui/spinner';
+import { downloadText, downloadUrl } from '../../lib/download';
 
 // echarts arrives with the first plot on screen, never with the first page.
 const EChart = lazy(() => import('./echart'));

@@ -1,4 +1,4 @@
-import { cn } from '../../../lib/cn';
+import { cn } from '../../lib/cn';
 
 /** A small two-or-more-way switch (radio group) for plot controls, e.g. linear / dB. */
 export function Segmented<T extends string>({ label, value, options, onChange }: {
