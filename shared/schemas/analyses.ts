@@ -158,6 +158,8 @@ export interface FindingDto {
   approximate: boolean;
   engineBorn: boolean;
   status: FindingStatus;
+  /** False once a re-rank no longer lists it (kept for its decision and note; rank is then 9999). */
+  inRanking: boolean;
   decidedBy: { id: number; name: string; role: string } | null;
   decidedAt: string | null;
   note: string | null;
