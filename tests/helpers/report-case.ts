@@ -15,7 +15,7 @@ export function alternatorFinding(afterAmplitude: number | null): FindingDto {
   return {
     id: 41, caseId: 12, rank: 1, component: 'Alternator', target: 'component', fault: 'outer_race', score: 0.82, order: 8.02,
     nominalOrder: 8.1, slipPct: 1.1, evidence: 'Alternator, outer race: 2 harmonics at 8.02, 16.05 orders in the envelope, 18 dB above floor.',
-    notes: [], indistinguishableFrom: [], approximate: false, engineBorn: false, status: 'confirmed',
+    notes: [], indistinguishableFrom: [], approximate: false, engineBorn: false, status: 'confirmed', inRanking: true,
     decidedBy: person(2, 'Lena Lead', 'lead'), decidedAt: '2026-12-03T09:00:00.000Z', note: 'Rough by hand',
     captures: [
       { captureId: 7, phase: 'before', probePoint: 'alternator front housing', score: 0.82, strongestSnrDb: 18, lines: before },
