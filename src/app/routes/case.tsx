@@ -52,17 +52,22 @@ export function CaseRoute() {
       {c.findings.length > 0 ? <SuspectsCard c={c} role={role} /> : null}
       {c.confirmed ? <RepairCard c={c} role={role} /> : null}
       {canUploadAfter ? <UploadPanel caseId={c.id} shopId={me.user.shop.id} components={components} phase="after_repair" prefill={prefill} /> : null}
-      <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
-        <CapturePlanCard items={plan} canUpload={canUploadBefore} onUse={(item) => setPrefill({ ...item.prefill })} />
-        <div className="grid content-start gap-5">
-          {canUploadBefore ? <UploadPanel caseId={c.id} shopId={me.user.shop.id} components={components} phase="before" prefill={prefill} /> : null}
-          {canUploadBefore ? <SafetyNote /> : null}
+      {canUploadBefore ? (
+        <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+          <CapturePlanCard items={plan} canUpload onUse={(item) => setPrefill({ ...item.prefill })} />
+          <div className="grid content-start gap-5">
+            <UploadPanel caseId={c.id} shopId={me.user.shop.id} components={components} phase="before" prefill={prefill} />
+            <SafetyNote />
+          </div>
         </div>
-      </div>
+      ) : null}
       <CapturesCard caseId={c.id} captures={c.captures} reviewPath={(id) => paths.captureReview(c.id, id)} />
       {c.findings.length === 0 ? <SuspectsCard c={c} role={role} /> : null}
       {probe ? <ProbePlot data={probe} fileName={c.roNumber} /> : null}
-      <TimelineCard entries={c.timeline} />
+      <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+        {canUploadBefore ? null : <CapturePlanCard items={plan} canUpload={false} onUse={() => undefined} />}
+        <TimelineCard entries={c.timeline} />
+      </div>
     </div>
   );
 }

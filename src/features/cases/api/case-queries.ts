@@ -70,6 +70,8 @@ export const seriesQueryOptions = <T extends SeriesDto = SeriesDto>(analysisId: 
       return api.get<T>(`/api/analyses/${analysisId}/series/${name}?${qs}`, { signal });
     },
     staleTime: Infinity,
+    // The plots show their own error state; no toast on top of it.
+    meta: { quiet: true },
   });
 
 /** Where the browser fetches a capture's pickup channel as WAV, the case's report PDF and export zip. */

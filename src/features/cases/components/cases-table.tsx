@@ -56,8 +56,8 @@ export function CasesTable({ casePath }: { casePath: (id: number) => string }) {
         ) : <span className="text-muted-foreground">—</span>;
       },
     }),
-    column.accessor((r) => r.technician?.name ?? '—', { id: 'technician', header: 'Technician', enableSorting: false }),
-    column.accessor((r) => r.lead?.name ?? '—', { id: 'lead', header: 'Lead', enableSorting: false }),
+    column.accessor((r) => r.technician?.name ?? '—', { id: 'technician', header: 'Technician', enableSorting: false, cell: (c) => <span className="whitespace-nowrap">{c.getValue()}</span> }),
+    column.accessor((r) => r.lead?.name ?? '—', { id: 'lead', header: 'Lead', enableSorting: false, cell: (c) => <span className="whitespace-nowrap">{c.getValue()}</span> }),
     column.accessor('updatedAt', {
       header: 'Last change',
       cell: (c) => <span className="whitespace-nowrap font-mono text-sm tabular-nums">{when(c.getValue())}</span>,

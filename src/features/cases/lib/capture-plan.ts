@@ -28,11 +28,12 @@ export function capturePlan(drive: DriveDocument | null, captures: readonly Pick
   const items: PlanItem[] = [];
   const parts = drive ? drive.components.filter((c) => c.kind !== 'crankshaft') : [];
   for (const p of parts) {
-    const where = `${p.name.toLowerCase()} ${HOUSING[p.kind] ?? 'housing'}`;
+    // "Power steering pump" + "pump body" reads "power steering pump body".
+    const where = `${p.name} ${HOUSING[p.kind] ?? 'housing'}`.replace(/\b(\w+) \1\b/i, '$1');
     items.push({
       key: `probe:${p.name}`,
       label: `Probe on the ${where}`,
-      why: `Lines that grow as the probe nears the ${p.name.toLowerCase()} point at it.`,
+      why: `Lines that grow as the probe nears the ${p.name} point at it.`,
       done: before.some((c) => (c.metadata.probePoint.component ?? '').toLowerCase() === p.name.toLowerCase()),
       prefill: { probePoint: { label: where, component: p.name } },
     });
