@@ -27,6 +27,8 @@ export const EnvSchema = z.object({
   DEMO: boolish.default(true),
   SIGNIN_MAX_FAILURES: z.coerce.number().int().min(1).default(10),
   SIGNIN_WINDOW_MIN: z.coerce.number().positive().default(15),
+  /** Failed sign-ins per client IP across all addresses within the window (password spraying). */
+  SIGNIN_IP_MAX_FAILURES: z.coerce.number().int().min(1).default(100),
   INVITE_TTL_HOURS: z.coerce.number().positive().default(48),
   RESET_TTL_MIN: z.coerce.number().positive().default(60),
   /** Express "trust proxy" value: unset (no proxy), a hop count, or `true`. Also makes cookies Secure. */
