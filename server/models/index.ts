@@ -5,6 +5,7 @@ import { BearingType, initBearingType } from './bearing-type';
 import { Belt, initBelt } from './belt';
 import { DriveComponent, initDriveComponent } from './drive-component';
 import { Engine, initEngine } from './engine';
+import { EngineRevision, initEngineRevision } from './engine-revision';
 import { Invite, initInvite } from './invite';
 import { MailMessage, initMailMessage } from './mail-message';
 import { PasswordReset, initPasswordReset } from './password-reset';
@@ -12,7 +13,7 @@ import { Session, initSession } from './session';
 import { Shop, initShop } from './shop';
 import { User, initUser } from './user';
 
-export { BearingType, Belt, DriveComponent, Engine, Invite, MailMessage, PasswordReset, Session, Shop, User };
+export { BearingType, Belt, DriveComponent, Engine, EngineRevision, Invite, MailMessage, PasswordReset, Session, Shop, User };
 
 /** Initialises the models on `sequelize` and defines their associations. Idempotent per instance. */
 export function initModels(sequelize: Sequelize): void {
@@ -26,6 +27,7 @@ export function initModels(sequelize: Sequelize): void {
   initEngine(sequelize);
   initBelt(sequelize);
   initDriveComponent(sequelize);
+  initEngineRevision(sequelize);
 
   Shop.hasMany(User, { foreignKey: 'shopId', as: 'users' });
   User.belongsTo(Shop, { foreignKey: 'shopId', as: 'shop' });
@@ -43,4 +45,6 @@ export function initModels(sequelize: Sequelize): void {
   Engine.hasMany(DriveComponent, { foreignKey: 'engineId', as: 'components' });
   Belt.belongsTo(DriveComponent, { foreignKey: 'driverComponentId', as: 'driverComponent', constraints: false });
   DriveComponent.belongsTo(Belt, { foreignKey: 'beltId', as: 'belt', constraints: false });
+  Engine.hasMany(EngineRevision, { foreignKey: 'engineId', as: 'revisions' });
+  Shop.hasMany(EngineRevision, { foreignKey: 'shopId' });
 }
