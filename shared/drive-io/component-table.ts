@@ -41,7 +41,7 @@ export interface CsvImportProblem {
 /** Result of reading a component table: the components with their lines, or every problem found. */
 export type ComponentCsvResult =
   | { ok: true; components: ComponentSpec[]; lines: number[] }
-  | { ok: false; problems: CsvImportProblem[] };
+  | { ok: false; problems: CsvImportProblem[]; components?: ComponentSpec[]; lines?: number[] };
 
 // Written with 12 significant digits at most, so that binary noise (0.2656 × 25.4 = 6.746239999999999)
 // leaves as the number entered (6.74624); what a user typed has far fewer digits than that.
@@ -166,11 +166,13 @@ export function readComponentRecords(
       const at = index.get(h);
       return at === undefined ? '' : fields[at] ?? '';
     };
-    const c = readRow(cell, line, beltByLower, problems);
-    if (c) { components.push(c); lines.push(line); }
+    // A row with a bad cell is still read (without that cell), so that the drive schema can
+    // report the row's other problems in the same pass.
+    components.push(readRow(cell, line, beltByLower, problems));
+    lines.push(line);
   }
   problems.sort((a, b) => a.line - b.line);
-  return problems.length > before || problems.length > 0 ? { ok: false, problems } : { ok: true, components, lines };
+  return problems.length > before || problems.length > 0 ? { ok: false, problems, components, lines } : { ok: true, components, lines };
 }
 
 function readRow(
@@ -178,8 +180,7 @@ function readRow(
   line: number,
   beltByLower: Map<string, string>,
   problems: CsvImportProblem[],
-): ComponentSpec | null {
-  const before = problems.length;
+): ComponentSpec {
   const name = cell('name');
   if (name === '') problems.push({ line, field: 'name', message: 'The name is empty; every part needs a name' });
   const kind = cell('kind');
@@ -190,6 +191,7 @@ function readRow(
   if (cell('belt') !== '') {
     belt = beltByLower.get(cell('belt').toLowerCase());
     if (belt === undefined) {
+      belt = cell('belt');
       const known = [...beltByLower.values()];
       problems.push({
         line, field: 'belt',
@@ -220,20 +222,18 @@ function readRow(
   if (source !== '' && !SOURCES.includes(source as (typeof SOURCES)[number])) {
     problems.push({ line, field: 'source', message: `The bearing source must be published, measured or estimated (or empty), got "${cell('source')}"` });
   }
-  if (problems.length > before) return null;
-
   const bearing: BearingSpec = {};
   if (cell('designation') !== '') bearing.designation = cell('designation');
   if (balls !== undefined) bearing.balls = balls;
   if (ballMm !== undefined) bearing.ballMm = ballMm;
   if (pitchMm !== undefined) bearing.pitchMm = pitchMm;
   if (contactDeg !== undefined) bearing.contactDeg = contactDeg;
-  if (givenFactors.length === FACTOR_KEYS.length) {
+  if (givenFactors.length === FACTOR_KEYS.length && factorValues.every((v) => v !== undefined)) {
     const [ftf, bpfo, bpfi, bsf] = factorValues as number[];
     bearing.factors = { ftf, bpfo, bpfi, bsf };
   }
-  if (ring !== '') bearing.rotatingRing = ring as RotatingRing;
-  if (source !== '') bearing.source = source as (typeof SOURCES)[number];
+  if (RINGS.includes(ring as RotatingRing)) bearing.rotatingRing = ring as RotatingRing;
+  if (SOURCES.includes(source as (typeof SOURCES)[number])) bearing.source = source as (typeof SOURCES)[number];
 
   const c: ComponentSpec = { name, kind: kind as ComponentKind };
   if (belt !== undefined) c.belt = belt;

@@ -74,7 +74,8 @@ const trimTrailing = (r: CsvRecord): CsvRecord => {
   return { line: r.line, fields };
 };
 
-function headerIndex(head: CsvRecord, expected: readonly string[], block: string, problems: CsvImportProblem[]): Map<string, number> | null {
+function headerIndex(padded: CsvRecord, expected: readonly string[], block: string, problems: CsvImportProblem[]): Map<string, number> | null {
+  const head = trimTrailing(padded);
   const before = problems.length;
   const index = new Map<string, number>();
   head.fields.forEach((f, i) => {
@@ -110,9 +111,10 @@ export function parseEngineCsv(text: string): EngineCsvResult {
   const blocks = new Map<Block, CsvRecord[]>();
   const blockLine: Partial<Record<Block, number>> = {};
   let current: Block | null = null;
-  for (const raw of records) {
-    const r = trimTrailing(raw);
-    const title = r.fields.length === 1 ? TITLE.exec(r.fields[0]) : null;
+  for (const r of records) {
+    // A spreadsheet pads every row to the widest one: a title row may come with empty cells after it.
+    const trimmed = trimTrailing(r);
+    const title = trimmed.fields.length === 1 ? TITLE.exec(trimmed.fields[0]) : null;
     if (title) {
       current = title[1].toLowerCase() as Block;
       if (blocks.has(current)) problems.push({ line: r.line, message: `The [${current}] block appears twice; keep one` });
@@ -178,19 +180,27 @@ export function parseEngineCsv(text: string): EngineCsvResult {
   if (componentRows.length > 0) {
     const [head, ...rows] = componentRows;
     const read = readComponentRecords(head, rows, doc.belts.filter((b) => b.name), problems);
-    if (read.ok) {
-      doc.components = read.components;
-      lines.components = read.lines;
-    }
+    doc.components = read.components ?? [];
+    lines.components = read.lines ?? [];
   }
 
-  if (problems.length > 0) return { ok: false, problems: sortProblems(problems) };
+  // Every row's problems in one pass: the schema's are added unless that line and column already has one.
   try {
     const parsed = parseDriveDocument(doc);
+    if (problems.length > 0) return { ok: false, problems: sortProblems(problems) };
     return { ok: true, document: { ...parsed, ...(doc.notes ? { notes: doc.notes } : {}) }, lines };
   } catch (error) {
     if (!(error instanceof DriveDocumentError)) throw error;
-    return { ok: false, problems: sortProblems(error.issues.map((issue) => ({ ...locate(issue.path, lines), message: issue.message }) as CsvImportProblem)) };
+    const seen = new Set(problems.map((p) => `${p.line}:${p.field ?? ''}`));
+    const seenLines = new Set(problems.filter((p) => !p.field).map((p) => p.line));
+    for (const issue of error.issues) {
+      const at = locate(issue.path, lines);
+      const k = `${at.line}:${at.field ?? ''}`;
+      if (seen.has(k) || seenLines.has(at.line ?? -1)) continue;
+      seen.add(k);
+      problems.push({ line: at.line ?? 1, ...(at.field ? { field: at.field } : {}), message: issue.message });
+    }
+    return { ok: false, problems: sortProblems(problems) };
   }
 }
 

@@ -14,7 +14,7 @@ export const BEARINGS: BearingTypeDto[] = BUILT_IN_BEARINGS.filter((b) => b.sour
 /** An engine DTO as GET /api/engines/:id sends it, computed with the shared kinematics. */
 export function engineDto(doc: DriveDocument, id = 41): EngineDetailDto {
   const shopTable = BUILT_IN_BEARINGS.filter((b) => b.source === 'published');
-  return { ...doc, id, notes: 'invented demo values', updatedAt: '2026-03-01T10:00:00.000Z', computed: computeEngine(doc, shopTable) };
+  return { ...doc, id, notes: 'invented demo values', version: 1, updatedAt: '2026-03-01T10:00:00.000Z', computed: computeEngine(doc, shopTable) };
 }
 
 /** A row of the engines table. */
