@@ -21,3 +21,10 @@ export function engineDto(doc: DriveDocument, id = 41): EngineDetailDto {
 export function summary(doc: DriveDocument, id: number): EngineSummaryDto {
   return { id, name: doc.name, cylinders: doc.cylinders, firingOrder: doc.firingOrder, idleRpm: doc.idleRpm ?? null, belts: doc.belts.length, components: doc.components.length, updatedAt: '2026-03-01T10:00:00.000Z' };
 }
+
+/** The shop's settings as GET /api/shop/settings sends them (defaults). */
+export const SETTINGS = {
+  id: 1, isDemo: false, name: 'Test Garage', address: '', phone: '', defaultLeadId: null, serviceAdvisorEmail: '',
+  analysisDefaults: { envelopeBand: 'auto' as const, envelopeMaxHz: 9000, samplesPerRev: 256, revsPerBlock: 32 },
+  groovedOffsetMm: 2, backsideOffsetMm: 3, pulleyUnit: 'mm' as const, leads: [],
+};
