@@ -9,7 +9,7 @@
  *
  * The defaults are estimates a shop should check against a pulley of known size:
  * - grooved: +2 mm, ISO 9981's nominal "effective line differential" of 2 mm for the PK profile,
- *   taken on the diameter (REFERENCES.md §5, read through a secondary copy; whether the 2 mm is
+ *   taken on the diameter (docs/references.md §5, read through a secondary copy; whether the 2 mm is
  *   per side is not settled there, which would make the offset 4 mm);
  * - backside: +3 mm, twice an assumed 1.5 mm from the belt's back to its cord line (from memory,
  *   not from a standard).
@@ -22,7 +22,7 @@ export const DEFAULT_BACKSIDE_OFFSET_MM = 3;
 
 /** What each default rests on, in words a shop can check (shown beside the settings). */
 export const OFFSET_BASIS = {
-  grooved: "Estimated — check against a pulley of known size. Rests on ISO 9981's nominal effective line differential of 2 mm for PK pulleys (REFERENCES.md §5; whether it is per side is not settled).",
+  grooved: "Estimated — check against a pulley of known size. Rests on ISO 9981's nominal effective line differential of 2 mm for PK pulleys (docs/references.md §5; whether it is per side is not settled).",
   backside: "Estimated — check against a pulley of known size. Assumes the belt's cord line lies about 1.5 mm under its back (from memory, not a standard).",
 } as const;
 

@@ -57,7 +57,7 @@ describe('engines API', () => {
     expect(document).toStrictEqual(doc);
     const alt = computed.components.find((c: { component: string }) => c.component === 'Alternator');
     expect(alt.ratio).toBeCloseTo(162 / 60, 12);
-    // 6203 on the alternator: BPFO factor 3.0530 per turn, CWRU published (REFERENCES.md §1).
+    // 6203 on the alternator: BPFO factor 3.0530 per turn, CWRU published (docs/references.md §1).
     expect(alt.orders.bpfo / (alt.ratio * 3.053)).toBeCloseTo(1, 3);
     expect(computed.belts.find((b: { belt: string }) => b.belt === 'Front').speedMs).toBeCloseTo(Math.PI * 0.162 * (680 / 60), 9);
     expect(computed.candidates.length).toBe(doc.components.length - 1 + doc.belts.length);
@@ -184,7 +184,7 @@ describe('engines API', () => {
     expect(res.headers['content-disposition']).toMatch(/attachment; filename="?[a-z0-9-]+\.drive\.json/);
     const doc = parseDriveDocument(JSON.parse(res.text));
     const idler = doc.components.find((c) => c.name === 'Upper idler')!;
-    // CWRU 6203: 8 balls, d 0.2656 in, D 1.122 in (REFERENCES.md §1), in millimetres, written as
+    // CWRU 6203: 8 balls, d 0.2656 in, D 1.122 in (docs/references.md §1), in millimetres, written as
     // entered (6.74624, not the 6.746239999999999 of binary arithmetic).
     expect(idler.bearing).toMatchObject({ designation: '6203', balls: 8, rotatingRing: 'outer', source: 'published' });
     expect(idler.bearing!.ballMm).toBe(6.74624);
