@@ -7,4 +7,5 @@ export const engineKeys = {
   list: (filters: EngineListQuery) => [...engineKeys.lists(), filters] as const,
   details: () => [...engineKeys.all, 'detail'] as const,
   detail: (id: number) => [...engineKeys.details(), id] as const,
+  history: (id: number) => [...engineKeys.detail(id), 'history'] as const,
 };
