@@ -77,12 +77,15 @@ export async function runClaimedJob(deps: JobDeps, id: number): Promise<JobOutco
   try {
     let drive: DriveDocument | null = null;
     if (c.engineId !== null) {
-      const engine = await Engine.findByPk(c.engineId);
-      if (engine) {
-        const doc = await loadDriveDocument(engine);
+      const engineId = c.engineId;
+      // One transaction: the engine and its drive are read as one snapshot (no torn read).
+      drive = await deps.sequelize.transaction(async (t) => {
+        const engine = await Engine.findByPk(engineId, { transaction: t });
+        if (!engine) return null;
+        const doc = await loadDriveDocument(engine, t);
         delete doc.notes;
-        drive = doc;
-      }
+        return doc;
+      });
     }
     let resolved;
     try {
