@@ -10,8 +10,11 @@ import type { RouteRow } from './route-row';
 
 const signIn: RequestHandler = (req, res, next) => {
   const { passport } = appContext(req);
-  passport.authenticate('local', { session: false }, (err: unknown, user: SessionUser | false) => {
+  passport.authenticate('local', { session: false }, (err: unknown, user: SessionUser | false, info?: { message?: string }) => {
     if (err) return next(err);
+    if (!user && info?.message === 'deactivated') {
+      return next(new AppError(403, 'account_deactivated', "This account is deactivated. Ask your shop's admin to turn it back on."));
+    }
     if (!user) return next(new AppError(401, 'invalid_credentials', 'E-mail or password is wrong'));
     // passport ≥0.6 regenerates the session id here (session-fixation defence).
     req.logIn(user, (loginError) => {
@@ -40,7 +43,12 @@ export const authRoutes: RouteRow[] = [
     path: '/auth/sign-in',
     roles: 'public',
     summary: 'sign in with e-mail and password',
-    handlers: [validate({ body: SignInSchema }), (req, res, next) => appContext(req).signInLimiter(req, res, next), signIn],
+    handlers: [
+      validate({ body: SignInSchema }),
+      (req, res, next) => appContext(req).signInIpLimiter(req, res, next),
+      (req, res, next) => appContext(req).signInLimiter(req, res, next),
+      signIn,
+    ],
   },
   {
     method: 'post',

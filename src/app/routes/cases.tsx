@@ -4,7 +4,7 @@ import { Card, CardContent } from '../../components/ui/card';
 import { CasesTable } from '../../features/cases/components/cases-table';
 import { paths } from '../paths';
 
-/** Cases: one per repair order (DESIGN.md "Domain model"), filtered, searched, sorted and paged. */
+/** Cases: one per repair order (docs/design.md "Domain model"), filtered, searched, sorted and paged. */
 export function CasesRoute() {
   return (
     <>
