@@ -8,7 +8,7 @@ import { Button } from '../../components/ui/button';
 import { Card } from '../../components/ui/card';
 import { Caution, ErrorState } from '../../components/ui/states';
 import { meQueryOptions } from '../../features/auth/api/auth-queries';
-import { caseDriveQueryOptions, caseExportUrl, caseQueryOptions, reportPdfUrl, seriesQueryOptions } from '../../features/cases/api/case-queries';
+import { caseDriveQueryOptions, caseExportUrl, caseQueryOptions, caseShopQueryOptions, reportPdfUrl, seriesQueryOptions } from '../../features/cases/api/case-queries';
 import { useSendReport } from '../../features/cases/api/use-case-mutations';
 import { summaryView } from '../../features/cases/lib/summary';
 import { OrdersPlot } from '../../features/plots/components/orders-plot';
@@ -22,7 +22,9 @@ export function CaseReportRoute() {
   const copy = search.get('copy') === 'customer' ? 'customer' : 'advisor';
   const { data: c } = useSuspenseQuery(caseQueryOptions(caseId));
   const { data: me } = useSuspenseQuery(meQueryOptions());
-  const shop = me.user.shop as { name: string; address?: string | null; phone?: string | null; email?: string | null };
+  // The header: Shop setup's name, address and phone; the shop name alone until those load (or when unset).
+  const settings = useQuery(caseShopQueryOptions());
+  const shop = settings.data ?? me.user.shop;
   const r = useMemo(() => reportContent(c, shop, copy), [c, shop, copy]);
   const send = useSendReport(c.id);
   const lead = me.user.role === 'lead' || me.user.role === 'admin';

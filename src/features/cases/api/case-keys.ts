@@ -8,6 +8,7 @@ export const caseKeys = {
   details: () => [...caseKeys.all, 'detail'] as const,
   detail: (id: number) => [...caseKeys.details(), id] as const,
   people: () => [...caseKeys.all, 'people'] as const,
+  shop: () => [...caseKeys.all, 'shop'] as const,
   drive: (engineId: number) => [...caseKeys.all, 'drive', engineId] as const,
   capture: (id: number) => [...caseKeys.all, 'capture', id] as const,
   series: (analysisId: number, name: string, params: Record<string, number | undefined>) => [...caseKeys.all, 'series', analysisId, name, params] as const,

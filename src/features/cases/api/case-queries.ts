@@ -3,6 +3,7 @@ import type { DriveDocument } from '../../../../shared/drive/types';
 import { isFinalStatus, type SeriesDto, type SeriesName } from '../../../../shared/schemas/analyses';
 import type { CaptureDto } from '../../../../shared/schemas/captures';
 import type { CaseDto, CaseListQuery, CaseListResponse, CasePeopleResponse } from '../../../../shared/schemas/cases';
+import type { ShopSettingsDto } from '../../../../shared/schemas/shop-settings';
 import { api } from '../../../lib/api-client';
 import { caseKeys } from './case-keys';
 
@@ -78,3 +79,12 @@ export const seriesQueryOptions = <T extends SeriesDto = SeriesDto>(analysisId: 
 export const captureAudioUrl = (captureId: number) => `/api/captures/${captureId}/audio`;
 export const reportPdfUrl = (caseId: number, copy: 'advisor' | 'customer') => `/api/cases/${caseId}/report.pdf?copy=${copy}`;
 export const caseExportUrl = (caseId: number) => `/api/cases/${caseId}/export.zip`;
+
+/** GET /api/shop/settings: the report header (name, address, phone) and the new-case defaults (lead, advisor's e-mail). */
+export const caseShopQueryOptions = () =>
+  queryOptions({
+    queryKey: caseKeys.shop(),
+    queryFn: ({ signal }) => api.get<{ settings: ShopSettingsDto }>('/api/shop/settings', { signal }).then((r) => r.settings),
+    staleTime: 60_000,
+    meta: { quiet: true },
+  });

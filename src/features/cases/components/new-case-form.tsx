@@ -31,7 +31,7 @@ export function NewCaseForm({ onCreated, onCancel, me, advisorDefaults }: {
   onCancel: () => void;
   me: { id: number };
   /** The shop's usual service advisor, where Shop setup has one. */
-  advisorDefaults?: { name?: string | null; email?: string | null };
+  advisorDefaults?: { name?: string | null; email?: string | null; leadId?: number | null };
 }) {
   const id = useId();
   const people = useQuery(casePeopleQueryOptions());
@@ -44,7 +44,7 @@ export function NewCaseForm({ onCreated, onCancel, me, advisorDefaults }: {
   const { register, handleSubmit, setError, formState: { errors, isSubmitting } } = useForm<FormIn, unknown, FormOut>({
     resolver: zodResolver(CreateCaseSchema),
     defaultValues: {
-      roNumber: '', complaint: '', engineId: null, technicianId: me.id, leadId: null,
+      roNumber: '', complaint: '', engineId: null, technicianId: me.id, leadId: advisorDefaults?.leadId ?? null,
       vehicle: { year: null, make: '', model: '', vin: '', odometer: null, odometerUnit: 'km' },
       advisorName: advisorDefaults?.name ?? '', advisorEmail: advisorDefaults?.email ?? '',
     },
