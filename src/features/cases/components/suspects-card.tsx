@@ -90,7 +90,7 @@ export function SuspectsCard({ c, role }: { c: CaseDto; role: string }) {
                   </p>
                   <p className="mt-1 text-sm">{f.evidence}</p>
                   {f.notes.map((n) => <p key={n} className="text-sm text-foreground/80">{n}</p>)}
-                  {f.indistinguishableFrom.length > 0 ? (
+                  {f.indistinguishableFrom.length > 0 && !/cannot be told/i.test(f.evidence) ? (
                     <p className="mt-1 text-sm text-warning-foreground">{f.component} {separationAdvice(f.indistinguishableFrom)}.</p>
                   ) : null}
                   {f.note ? <p className="mt-1 text-sm text-muted-foreground">{f.decidedBy?.name ?? 'Someone'}{f.decidedAt ? `, ${when(f.decidedAt)}` : ''}: “{f.note}”</p> : null}
