@@ -197,8 +197,9 @@ describe('capture readers under random and damaged input', () => {
         v.setUint32(40, size, true);
         const before = process.memoryUsage().arrayBuffers;
         const result = outcome(b, 'claim.wav');
-        // 8 channels × 2^21 frames × 4 bytes = 64 MiB is the most a header can make the reader reserve.
-        expect(process.memoryUsage().arrayBuffers - before).toBeLessThan(80 * 2 ** 20);
+        // 8 channels × 2^21 frames × 4 bytes = 64 MiB is the most a header can make the reader
+        // reserve; the bound leaves room for buffers the runtime allocates meanwhile (the bug reserved 8–17 GB).
+        expect(process.memoryUsage().arrayBuffers - before).toBeLessThan(256 * 2 ** 20);
         checkBounded(result, b);
       }),
       { seed: SEED, numRuns: 60 },
