@@ -14,6 +14,9 @@ import { projectRoot } from './paths';
 import { removeDemoShop, seedDemoShop } from './services/demo-shop';
 import { resolveSessionSecret } from './session-secret';
 
+/** How long close() waits for requests in progress before cutting their connections. */
+const SHUTDOWN_GRACE_MS = 10_000;
+
 /** A running server. */
 export interface BootedServer {
   url: string;
@@ -58,6 +61,12 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
     const s = app.listen(env.PORT, env.HOST, () => resolve(s));
     s.once('error', (error) => reject(portError(error, env.PORT, 'PORT')));
   });
+  // Requests in progress, so that close() lets them finish before the database pool closes.
+  let inFlight = 0;
+  server.on('request', (_req, res: import('node:http').ServerResponse) => {
+    inFlight += 1;
+    res.once('close', () => (inFlight -= 1));
+  });
   const { port } = server.address() as AddressInfo;
   const url = `http://${env.HOST}:${port}`;
   return {
@@ -65,10 +74,14 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
     demoCreated,
     mailFakeUrl: fake?.url ?? null,
     async close() {
-      await new Promise<void>((resolve) => {
-        server.close(() => resolve());
-        server.closeAllConnections();
-      });
+      // Stop accepting, let requests in progress finish (at most SHUTDOWN_GRACE_MS), then cut the
+      // rest: a handler must not find the database pool closed under it mid-transaction.
+      const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+      server.closeIdleConnections();
+      const deadline = Date.now() + SHUTDOWN_GRACE_MS;
+      while (inFlight > 0 && Date.now() < deadline) await new Promise((r) => setTimeout(r, 50));
+      server.closeAllConnections();
+      await closed;
       mailer.close();
       await fake?.stop();
       await sequelize.close();
