@@ -6,13 +6,15 @@ import { AnalysisInputError } from './analysis-input-error';
  * message saying what to do; the CLI exits 2 and the job runner marks the analysis failed.
  */
 
-/** Share of samples held at one extreme value above which a pickup counts as clipped flat (common practice for clipping detection; the value is ours). */
+/** Share of samples held at the channel's extremes above which a pickup counts as clipped flat (ours). */
 export const FLAT_SHARE = 0.5;
+/** Consecutive samples at one extreme that make a clipped run (a quantised quiet signal flips faster; ours). */
+export const CLIP_RUN = 8;
 
 /**
  * Throws `pickup_flat` when the pickup channel holds one value, or when at least FLAT_SHARE of its
- * samples sit exactly at its minimum or maximum (an input clipped at the recorder's range, or a
- * disconnected lead): its spectra would show nothing but the clipping.
+ * samples sit at its minimum or maximum in runs of CLIP_RUN or more (an input clipped at the
+ * recorder's range, or a lead that is off): its spectra would show nothing but the clipping.
  * @param pickup the pickup channel as read (any scale)
  * @param channel its 1-based channel number, for the message
  */
@@ -26,17 +28,20 @@ export function checkPickupNotFlat(pickup: ArrayLike<number>, channel: number): 
     if (v < min) min = v;
     if (v > max) max = v;
   }
-  let atMin = 0;
-  let atMax = 0;
-  for (let i = 0; i < n; i++) {
-    const v = pickup[i];
-    if (v === min) atMin++;
-    else if (v === max) atMax++;
+  let clipped = 0;
+  let run = 0;
+  for (let i = 0; i <= n; i++) {
+    const v = i < n ? pickup[i] : NaN;
+    if (i < n && (v === min || v === max) && (run === 0 || v === pickup[i - 1])) run++;
+    else {
+      if (run >= CLIP_RUN) clipped += run;
+      run = i < n && (v === min || v === max) ? 1 : 0;
+    }
   }
-  const share = min === max ? 1 : Math.max(atMin, atMax) / n;
+  const share = min === max ? 1 : clipped / n;
   if (share >= FLAT_SHARE) {
     throw new AnalysisInputError('pickup_flat',
-      `the pickup (channel ${channel}) is flat: ${(share * 100).toFixed(0)} % of its samples sit at one value, so it was clipped at the recorder's input range or its lead is off; check the pickup lead and the range, then record again`);
+      `the pickup (channel ${channel}) is flat: ${(share * 100).toFixed(0)} % of its samples sit at its limits, so it was clipped at the recorder's input range or its lead is off; check the pickup lead and the range, then record again`);
   }
 }
 
