@@ -13,6 +13,11 @@ import { createSmtpMailer } from './mail/mailer';
 import { projectRoot } from './paths';
 import { removeDemoShop, seedDemoShop } from './services/demo-shop';
 import { resolveSessionSecret } from './session-secret';
+import { startJobRunner, type JobRunner } from './jobs/job-runner';
+import { closePool, getPool, runTask } from './pool';
+import { seedDemoCases } from './services/demo-cases';
+import { createStorage } from './storage/create-storage';
+import type { AppContext } from './context';
 
 /** How long close() waits for requests in progress before cutting their connections. */
 const SHUTDOWN_GRACE_MS = 10_000;
@@ -49,7 +54,13 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
     logger.info('mail fake listening (messages go to the Outbox)', { url: fake.url });
   }
   const mailer = createSmtpMailer(mailUrl, env.MAIL_FROM);
+  const storage = createStorage(env);
+  if (env.DEMO) {
+    const seeded = await seedDemoCases(storage, logger);
+    if (seeded > 0) logger.info('seeded the demo cases', { cases: seeded });
+  }
   const app = createApp({
+    storage,
     sequelize,
     env,
     mailer,
@@ -67,6 +78,14 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
     inFlight += 1;
     res.once('close', () => (inFlight -= 1));
   });
+  let jobs: JobRunner | null = null;
+  if (env.JOBS_IN_PROCESS) {
+    jobs = startJobRunner({
+      sequelize, storage, logger, analyze: (input) => runTask('analyzeFile', input),
+      concurrency: env.JOBS_CONCURRENCY ?? getPool().options.maxThreads, leaseMs: env.JOB_LEASE_S * 1000, pollMs: env.JOB_POLL_MS,
+    });
+    (app.locals.ctx as AppContext).jobs = jobs;
+  }
   const { port } = server.address() as AddressInfo;
   const url = `http://${env.HOST}:${port}`;
   return {
@@ -82,6 +101,8 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
       while (inFlight > 0 && Date.now() < deadline) await new Promise((r) => setTimeout(r, 50));
       server.closeAllConnections();
       await closed;
+      await jobs?.stop();
+      await closePool();
       mailer.close();
       await fake?.stop();
       await sequelize.close();
