@@ -12,7 +12,7 @@ export const FLAT_SHARE = 0.5;
 export const CLIP_RUN = 8;
 
 /**
- * Throws `pickup_flat` when the pickup channel holds one value, or when at least FLAT_SHARE of its
+ * Throws `flat_channel` when the pickup channel holds one value, or when at least FLAT_SHARE of its
  * samples sit at its minimum or maximum in runs of CLIP_RUN or more (an input clipped at the
  * recorder's range, or a lead that is off): its spectra would show nothing but the clipping.
  * @param pickup the pickup channel as read (any scale)
@@ -40,7 +40,7 @@ export function checkPickupNotFlat(pickup: ArrayLike<number>, channel: number): 
   }
   const share = min === max ? 1 : clipped / n;
   if (share >= FLAT_SHARE) {
-    throw new AnalysisInputError('pickup_flat',
+    throw new AnalysisInputError('flat_channel',
       `the pickup (channel ${channel}) is flat: ${(share * 100).toFixed(0)} % of its samples sit at its limits, so it was clipped at the recorder's input range or its lead is off; check the pickup lead and the range, then record again`);
   }
 }

@@ -29,7 +29,7 @@ const EXPECTED: Record<string, string | null> = {
   'ragged-rows.csv': 'ragged_row', 'million-columns.csv': 'bad_header', 'non-uniform-time.csv': 'rate_irregular',
   'time-stands-still.csv': 'zero_rate', 'only-a-time-column.csv': 'too_few_channels', 'one-data-row.csv': 'no_data',
   'over-range-marker.csv': 'non_finite', 'nan-in-float-wav.wav': 'non_finite',
-  'all-zero-channels.wav': 'pickup_flat', 'pickup-clipped-flat.wav': 'pickup_flat',
+  'all-zero-channels.wav': 'flat_channel', 'pickup-clipped-flat.wav': 'flat_channel',
   'reference-without-pulses.wav': 'no_reference', 'reference-at-30000-rpm.wav': 'speed_implausible',
   'valid-capture.wav': null,
 };

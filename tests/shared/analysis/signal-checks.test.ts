@@ -16,11 +16,11 @@ function codeOf(run: () => void): string | null {
 
 describe('checkPickupNotFlat', () => {
   it('refuses a constant channel and one clipped at a rail for most of its samples', () => {
-    expect(codeOf(() => checkPickupNotFlat(new Float32Array(1000).fill(1), 2))).toBe('pickup_flat');
-    expect(codeOf(() => checkPickupNotFlat(new Float32Array(1000), 2))).toBe('pickup_flat');
+    expect(codeOf(() => checkPickupNotFlat(new Float32Array(1000).fill(1), 2))).toBe('flat_channel');
+    expect(codeOf(() => checkPickupNotFlat(new Float32Array(1000), 2))).toBe('flat_channel');
     // A sine driven far past the input range: about 90 % of samples sit at ±1, half of them at +1.
     const clipped = Float32Array.from({ length: 4000 }, (_, i) => Math.max(-1, Math.min(1, 20 * Math.sin(i / 10))));
-    expect(codeOf(() => checkPickupNotFlat(clipped, 3))).toBe('pickup_flat');
+    expect(codeOf(() => checkPickupNotFlat(clipped, 3))).toBe('flat_channel');
   });
 
   it('accepts a sine, a quiet coarse-quantised signal and a signal that touches its peak now and then', () => {
