@@ -107,7 +107,7 @@ async function storedFiles(): Promise<string[]> {
 function uploadForm(bytes: Uint8Array, name: string): FormData {
   const form = new FormData();
   form.append('metadata', JSON.stringify([metadataFor()]));
-  form.append('files', new Blob([bytes]), name);
+  form.append('files', new Blob([bytes as Uint8Array<ArrayBuffer>]), name);
   return form;
 }
 
