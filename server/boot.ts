@@ -17,6 +17,7 @@ import { startJobRunner, type JobRunner } from './jobs/job-runner';
 import { closePool, getPool, runTask } from './pool';
 import { seedDemoCases } from './services/demo-cases';
 import { createStorage } from './storage/create-storage';
+import { sweepStorage } from './storage/sweep';
 import type { AppContext } from './context';
 
 /** How long close() waits for requests in progress before cutting their connections. */
@@ -55,6 +56,9 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
   }
   const mailer = createSmtpMailer(mailUrl, env.MAIL_FROM);
   const storage = createStorage(env);
+  // The start-up sweep runs beside the server (a large bucket takes a while); it only logs.
+  void sweepStorage({ sequelize, storage, logger: logger.child({ component: 'sweep' }), graceMs: env.ORPHAN_GRACE_MIN * 60_000 }).catch((error: unknown) =>
+    logger.error('storage sweep failed', { error }));
   if (env.DEMO) {
     const seeded = await seedDemoCases(storage, logger);
     if (seeded > 0) logger.info('seeded the demo cases', { cases: seeded });
