@@ -58,6 +58,8 @@ export const EnvSchema = z.object({
   JOB_LEASE_S: z.coerce.number().positive().max(3600).default(60),
   /** How often an idle runner looks for queued jobs (ms). */
   JOB_POLL_MS: z.coerce.number().int().min(10).max(60_000).default(500),
+  /** Stored files without a capture row are removed at start-up once older than this (minutes). */
+  ORPHAN_GRACE_MIN: z.coerce.number().min(0).max(10_080).default(60),
 }).superRefine((e, ctx) => {
   if (e.STORAGE === 's3') {
     for (const k of ['S3_BUCKET', 'S3_ACCESS_KEY_ID', 'S3_SECRET_ACCESS_KEY'] as const) {

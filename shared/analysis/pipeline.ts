@@ -5,6 +5,7 @@ import { overlapSaveFilter } from '../dsp/overlap-save';
 import { type AnalysisSettings, AnalysisSettingsSchema } from '../schemas/analysis-settings';
 import { type DriveDocument } from '../drive/types';
 import { AnalysisInputError } from './analysis-input-error';
+import { checkPickupNotFlat, checkSpeedPlausible } from './signal-checks';
 import { resampleAtAngles } from './angle-resample';
 import { crankAngle, crankSpeed } from './crank-speed';
 import { cycleView } from './cycle-view';
@@ -78,6 +79,7 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
   const cam = settings.camChannel ? toFloat32(input.channels[settings.camChannel - 1], 1) : null;
   const pickupRaw = input.channels[settings.pickupChannel - 1];
   const pickupScale = scale(settings.pickupChannel);
+  checkPickupNotFlat(pickupRaw, settings.pickupChannel);
   let firingOrder = settings.firingOrder;
   if (!firingOrder) {
     firingOrder = commonFiringOrder(settings.cylinders);
@@ -96,6 +98,7 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
   if (speed.meanRpm < settings.minRpm || speed.meanRpm > settings.maxRpm) {
     warnings.push({ code: 'rpm_implausible', message: `mean speed ${speed.meanRpm.toFixed(0)} rpm is outside ${settings.minRpm}–${settings.maxRpm} rpm; check --ref-kind and --ref-per-cycle` });
   }
+  checkSpeedPlausible(speed.meanRpm, settings.minRpm, settings.maxRpm);
   const meanShaftHz = speed.meanRpm / 60;
   const minShaftHz = (Math.min(speed.minRpm, speed.meanRpm) / 60) * 0.98;
   const maxShaftHz = (Math.max(speed.maxRpm, speed.meanRpm) / 60) * 1.02;

@@ -29,6 +29,9 @@ type State =
   | { kind: 'data'; remaining: number; declared: number }
   | { kind: 'done' };
 
+/** Frames per channel allocated before the samples arrive (8 MiB per channel as float32); more grows by doubling. */
+const PREALLOCATE_FRAMES = 1 << 21;
+
 /** Creates a WAV chunk parser; `name` appears in error messages (e.g. the file name). */
 export function createWavParser(name = 'WAV file'): CaptureParser {
   let pending: Uint8Array = new Uint8Array(0);
@@ -36,6 +39,8 @@ export function createWavParser(name = 'WAV file'): CaptureParser {
   let format: WavFormat | null = null;
   let channels: Float32Array[] = [];
   let frames = 0;
+  /** Frames the data chunk's header announces (Infinity when it does not say). */
+  let declaredFrames = Infinity;
   let sawData = false;
   const notes: string[] = [];
 
@@ -125,7 +130,7 @@ export function createWavParser(name = 'WAV file'): CaptureParser {
   }
 
   function growChannels(minLength: number) {
-    const len = Math.max(minLength, channels[0].length * 2, 1024);
+    const len = Math.max(minLength, Math.min(Math.max(channels[0].length * 2, 1024), declaredFrames));
     channels = channels.map((ch) => { const n = new Float32Array(len); n.set(ch); return n; });
   }
 
@@ -154,7 +159,11 @@ export function createWavParser(name = 'WAV file'): CaptureParser {
           sawData = true;
           const declared = size === 0xffffffff || size === 0 ? Infinity : size;
           if (Number.isFinite(declared)) {
-            const n = Math.floor(declared / format.blockAlign);
+            // The header's length is a claim, not bytes in hand: allocate at most PREALLOCATE_FRAMES
+            // up front and grow (up to the claim) as data arrives, so a header announcing 2^31
+            // samples costs nothing until the samples exist (it then ends as `truncated`).
+            declaredFrames = Math.floor(declared / format.blockAlign);
+            const n = Math.min(declaredFrames, PREALLOCATE_FRAMES);
             channels = Array.from({ length: format.channels }, () => new Float32Array(n));
           } else {
             channels = Array.from({ length: format.channels }, () => new Float32Array(1 << 16));
