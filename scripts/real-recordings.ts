@@ -1,5 +1,5 @@
 /**
- * Scores the ranking on a folder of real recordings (issue 18, "Done when"): each recording is a
+ * Scores the ranking on a folder of real recordings: each recording is a
  * two-channel WAV (channel 1 the reference, channel 2 the pickup) listed in a truth file of the
  * open-data kit's `cwru-dev` format: a JSON array of `{ file, record, sampleRateHz, rpm,
  * component, fault, order, channelScale? }`, where a healthy baseline has `component` and `fault`
@@ -22,7 +22,7 @@ import { judgeRanking } from '../shared/ranking/judge-ranking';
 import type { RankingEntry } from '../shared/analysis/types';
 import type { DriveDocument } from '../shared/drive/types';
 
-/** Highest score any entry may reach on a healthy baseline (issue 18, "Done when"). */
+/** Highest score any entry may reach on a healthy baseline. */
 export const HEALTHY_MAX_SCORE = 0.3;
 
 const FaultSchema = z.enum(['shaft', 'outer_race', 'inner_race', 'ball', 'cage', 'belt']);

@@ -1,7 +1,7 @@
 import { type AnalysisResult, type Peak } from './types';
 
 /**
- * The `analyze --json` object (issue 10 §6), exactly: capture, settings, speed, orders, envelope,
+ * The `analyze --json` object (docs/analyze-json.md gives every field), exactly: capture, settings, speed, orders, envelope,
  * cycle, ranking, warnings, timingsMs — typed arrays and internal fields left out, numbers
  * rounded to what the measurement supports.
  */

@@ -19,7 +19,7 @@ import { subtractAverage, synchronousAverage } from './synchronous-average';
 import { type AnalysisResult, type EnvelopeBand, type RankingEntry, type RankingInput, type Warning } from './types';
 
 /**
- * The analysis pipeline (DESIGN.md steps 1–8) over decoded channels: reference edges → crank angle
+ * The analysis pipeline (docs/design.md steps 1–8) over decoded channels: reference edges → crank angle
  * and speed → order spectrum of the pickup → envelope of the best impulsive bands (residual after
  * the 720° average) → engine-cycle view → spectrogram → peaks → ranking (when the caller passes
  * `rank`, built from a drive document; shared/analysis never imports the ranking). The CLI, the
@@ -45,7 +45,7 @@ export interface PipelineOptions {
 const ENVELOPE_LOW_HZ = 300;
 
 /**
- * The plan's constants (issue 18 item 11), each with its reason. Rates are chosen once from the
+ * The plan's constants, each with its reason. Rates are chosen once from the
  * capture's speed range and the settings; the stages below only follow them.
  */
 const PLAN = {
@@ -149,7 +149,7 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
   let xO = xE;
   let fsO = fsE;
   while (PLAN.orderDecimateStop * fsO >= stopHz && fsO / 2 >= PLAN.orderDecimatePass * passHz) { xO = decimateByTwo(xO, half); fsO /= 2; }
-  // Anti-alias whenever the stop edge lies below the resampler's input Nyquist (issue 18 item 8).
+  // Anti-alias whenever the stop edge lies below the resampler's input Nyquist.
   if (stopHz < fsO / 2) {
     const cutoff = (passHz + stopHz) / 2 / fsO;
     const len = Math.min(4001, kaiserLength((stopHz - passHz) / fsO, 80));
@@ -182,7 +182,7 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
   if (hiCount < hiSpr * rpbE) {
     throw new AnalysisInputError('too_short', `the capture holds less than one whole engine cycle after cylinder-1 TDC; record at least 10 seconds`);
   }
-  // TODO(issue 18 item 8a): read from upsampleByTwo(xE) at 2·fsE (−37 dB instead of −16 dB error
+  // TODO(accuracy of the envelope path): read from upsampleByTwo(xE) at 2·fsE (−37 dB instead of −16 dB error
   // at 0.3·fsE, tests/shared/dsp/interpolate.test.ts); switching it on moved the cycle view's
   // impulsive-event detector below its threshold on a −3 dB generated capture, so the detector's
   // threshold needs retuning on the more accurate signal first.

@@ -1,5 +1,5 @@
 /**
- * The result of one pipeline run over a capture (DESIGN.md "The analysis pipeline"). The CLI's
+ * The result of one pipeline run over a capture (docs/design.md "The analysis pipeline"). The CLI's
  * `--json` output is a projection of this (typed arrays dropped); the ranking reads the spectra.
  * Orders are multiples of crank speed; amplitudes are single-sided peak amplitudes in input units
  * times the channel scale, corrected for the window's coherent gain.
@@ -56,7 +56,7 @@ export interface CycleEvent {
 export interface CycleResult {
   tdcOffsetDeg: number;
   phaseResolved: boolean;
-  /** Number of whole 720° cycles in the synchronous average (for the comb gain of REFERENCES.md §3). */
+  /** Number of whole 720° cycles in the synchronous average (for the comb gain of docs/references.md §3). */
   cyclesAveraged: number;
   event: CycleEvent | null;
   /** Synchronous average and short-window RMS over 720°, for the engine-cycle view. */
@@ -92,7 +92,7 @@ export interface MatchedLine {
   order: number;
   amplitude: number;
   snrDb: number;
-  /** Comb gain of the 720° average at this order (REFERENCES.md §3); > ~0.3 means not separable. */
+  /** Comb gain of the 720° average at this order (docs/references.md §3); > ~0.3 means not separable. */
   cycleGain: number;
 }
 
@@ -171,7 +171,7 @@ export interface SpectrogramResult {
   rpm: Float32Array;
 }
 
-/** One whole pipeline run (DESIGN.md steps 1–8). `toAnalyzeJson` projects it to the CLI's JSON. */
+/** One whole pipeline run (docs/design.md steps 1–8). `toAnalyzeJson` projects it to the CLI's JSON. */
 export interface AnalysisResult {
   capture: CaptureInfo;
   settings: AnalysisSettings;

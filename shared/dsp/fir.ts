@@ -136,9 +136,9 @@ function sideSum(x: ArrayLike<number>, i: number, taps: Float64Array, centre: nu
  * Doubles the sample rate with the half-band filter `h` (zero-stuffing, then filtering with gain
  * 2): y[2m] = x[m] (a half-band's even side taps are zero and its centre is ½), y[2m+1] =
  * 2·Σₜ h[c+2t+1]·(x[m−t] + x[m+1+t]) (samples outside x count as 0). With the default 51-tap
- * half-band (80 dB Kaiser, REFERENCES.md / common practice) the band 0 … 0.4 of the INPUT rate
+ * half-band (80 dB Kaiser, docs/references.md / common practice) the band 0 … 0.4 of the INPUT rate
  * passes within about 0.01 dB, so a cubic interpolator reading the output sees every frequency
- * below 0.2 of its rate instead of up to 0.4 (issue 18 item 8a).
+ * below 0.2 of its rate instead of up to 0.4.
  */
 export function upsampleByTwo(x: Float32Array | Float64Array, h: Float64Array = designHalfBand(), out?: Float64Array): Float64Array {
   const n = x.length;

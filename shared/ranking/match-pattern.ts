@@ -91,7 +91,7 @@ const HARMONIC_WEIGHT = [1, 0.8, 0.6, 0.5];
  */
 const BSF_SERIES_WEIGHT = [1, 0.8, 0.6, 0.5, 0.45, 0.4];
 const SIDEBAND_WEIGHT = 0.2;
-/** How much expected but missing sidebands cost: fully expected ones 0.25; a ball's, which real recordings often lack, 0.1 (issue 18 item 6). */
+/** How much expected but missing sidebands cost: fully expected ones 0.25; a ball's, which real recordings often lack, 0.1. */
 const MISSED_SIDEBAND_WEIGHT = 0.25;
 const MISSED_SIDEBAND_WEIGHT_UNEXPECTED = 0.1;
 
@@ -99,8 +99,8 @@ const MISSED_SIDEBAND_WEIGHT_UNEXPECTED = 0.1;
 const COMB_ABSENT_DB = 4;
 
 /**
- * Relative error of published defect factors and of real speed references (issue 18 item 5:
- * about ±0.5–1 %): added to the likely range of every bearing line, so a reading that far from
+ * Relative error of published defect factors and of real speed references (about ±0.5–1 %
+ * [practice, from memory]): added to the likely range of every bearing line, so a reading that far from
  * the kinematics' core is still fully plausible.
  */
 export const FACTOR_ERROR = 0.005;
@@ -112,14 +112,14 @@ const MASK_ENGINE_DB = 20;
 /** …and at least this far above the line read in its place (dB). */
 const MASK_MARGIN_DB = 10;
 
-/** Harmonics of a shaft order a bearing line is compared with (a shaft's own envelope shows up to about 10×, issue 18 item 1). */
+/** Harmonics of a shaft order a bearing line is compared with (a shaft's own envelope shows up to about 10×). */
 const SHAFT_MULTIPLES_MAX = 12;
 
 /**
  * Weight of a line on the engine's 0.5-order comb, judged from the whole pattern: more of its
  * harmonics off the comb make it likelier the part's own. In the raw order spectrum the engine's
  * lines are always there; the envelope spectra are taken from the residual after the 720°
- * average (DESIGN.md step 5), which removes most of them, so a comb line there counts more; and
+ * average (docs/design.md step 5), which removes most of them, so a comb line there counts more; and
  * where such a residual shows no comb at all (median SNR at the multiples under 4 dB), it counts
  * fully. (The raw spectrum's comb fades at high orders, so its median says nothing there.)
  */
@@ -130,7 +130,7 @@ function combWeight(offCombFound: number, engineLinesRemoved: boolean, combLevel
 }
 
 /**
- * Weight of a bearing line on a whole multiple of a shaft order (issue 18 item 1): real machines
+ * Weight of a bearing line on a whole multiple of a shaft order: real machines
  * put lines at 1×…10× shaft in the envelope (looseness, misalignment, rubbing; W. A. Smith and
  * R. B. Randall 2015 on the CWRU records), so a line there may be the shaft's and not the
  * bearing's. With no found harmonic off every shaft multiple the pattern is ambiguous with the
@@ -151,7 +151,7 @@ export function onShaftMultiple(order: number, shaftOrders: readonly number[], r
 }
 
 /**
- * Whether a line expected at `at` is hidden by an engine line (issue 18 item 3): a 0.5-order
+ * Whether a line expected at `at` is hidden by an engine line: a 0.5-order
  * multiple within `MASK_BINS` bins (but not within 0.6 bin, where the line is simply on the
  * comb) stands ≥ 20 dB above the floor, and what was read near `at` is that engine line or at
  * least 10 dB weaker than it. Such a line can be neither seen nor missed: it is unknown.
@@ -170,7 +170,7 @@ export function maskedByEngineLine(spectrum: OrderSpectrum, at: number, found: F
 /**
  * Plausibility 0.4–1 of a relative deviation `dev` of the fundamental from nominal, with `slack`
  * (half a bin plus the published factors' error) added to the likely range: 1 over the whole
- * likely range (issue 18 item 5: flat, not peaked at a default creep, since real factors and
+ * likely range (flat, not peaked at a default creep, since real factors and
  * speed references carry ±0.5–1 % error); beyond it falling in proportion to the deviation past
  * the likely range from 1 (unmeasured slip), or with its square from 0.85 (measured slip: gentle
  * just past the edge, where the measurement's own spread can put a line), to 0.4 at the window's
@@ -274,7 +274,7 @@ function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spe
     withBoth += strength * bothW;
     lines.push({ line: c.line, found: c.found, onComb, onShaftMultiple: onShaft, cycleGain: gain(c.found.order), weight: weightOf(c.line, bsfSeries) * bothW });
   }
-  // Sidebands confirm (DESIGN.md): a sideband sits about 8–12 dB below its carrier, so it is
+  // Sidebands confirm (docs/design.md): a sideband sits about 8–12 dB below its carrier, so it is
   // judged 9 dB more leniently, and its absence counts only as far as the carrier's strength
   // made it expected (never for a ball fault, whose sidebands real recordings often lack). A
   // pattern whose kind has no sidebands neither gains nor loses by them.
@@ -352,10 +352,10 @@ export function emptyMatch(search: PatternSearch): PatternMatch {
  * of other spectra in which the same fundamental's harmonics also stand ≥ 6 dB above the floor.
  * `engineLinesRemoved[i]` says spectrum i is of the residual after the 720° average (envelopes);
  * `caps[i]` is the highest order spectrum i can carry a pattern's line at (an envelope spectrum:
- * its band's width in orders, issue 18 item 7; default its top order).
+ * its band's width in orders; default its top order).
  */
 export function matchPattern(spectra: readonly OrderSpectrum[], search: PatternSearch, engineLinesRemoved: readonly boolean[] = [], caps: readonly number[] = []): PatternMatch {
-  // A ball is read twice (issue 18 item 6): as the 2×BSF series alone, and as the whole BSF
+  // A ball is read twice: as the 2×BSF series alone, and as the whole BSF
   // series with the odd multiples required too; the better reading stands.
   if (search.carriers.some((c) => c.optional)) {
     const even = matchPattern(spectra, { ...search, carriers: search.carriers.filter((c) => !c.optional) }, engineLinesRemoved, caps);

@@ -1,5 +1,5 @@
 /**
- * Ranks the drive's parts for one capture (DESIGN.md "Ranking suspects", issue 11 item 4): for
+ * Ranks the drive's parts for one capture (docs/design.md "Ranking suspects"): for
  * each (part, fault) its candidate lines are matched within their windows (shaft lines in the raw
  * order spectrum, bearing lines in the envelope spectra, belt lines in both), the whole pattern is
  * scored 0–1 as a list of named terms (shared/ranking/score-terms.ts: the pattern's own factors,
@@ -50,7 +50,7 @@ function searchFor(cc: ComponentCandidates, fault: Fault, cyclesAveraged: number
   const sidebands = lines.filter((l) => l.sideband !== 0);
   const role = carriers[0]?.role ?? 'shaft';
   const outer = cc.rotatingRing === 'outer';
-  // The turning race rises by the cage lag times the other race's share (REFERENCES.md §1, §4).
+  // The turning race rises by the cage lag times the other race's share (docs/references.md §1, §4).
   const f = cc.factors;
   const share = f && role === 'turning' ? (fault === 'inner_race' ? f.bpfo / f.bpfi : f.bpfi / f.bpfo) : undefined;
   const likely = likelyDeviation(role, cc.regime, outer, slip, cc.beltStages, share);
@@ -74,7 +74,7 @@ function searchFor(cc: ComponentCandidates, fault: Fault, cyclesAveraged: number
 /**
  * The spectra a fault is looked for in, whether each is of the residual after the 720° average
  * (the envelopes), and the highest order each can carry a line at: an envelope's band of width W
- * Hz carries modulation only up to W Hz, i.e. W / shaft Hz orders (issue 18 item 7).
+ * Hz carries modulation only up to W Hz, i.e. W / shaft Hz orders.
  */
 function spectraFor(fault: Fault, input: RankingInput): { spectra: OrderSpectrum[]; residual: boolean[]; caps: number[] } {
   const shaftHz = input.meanRpm / 60;
@@ -114,7 +114,7 @@ function toMatched(match: PatternMatch): MatchedLine[] {
 
 const pct = (x: number): string => `${(100 * x).toFixed(1)} %`;
 
-/** The terms of a pattern's own reading (issue 18 item 2): the factors of the match, its confirmations and its own shaft speed. */
+/** The terms of a pattern's own reading: the factors of the match, its confirmations and its own shaft speed. */
 function ownTerms(cc: ComponentCandidates, fault: Fault, match: PatternMatch, shaftConfirmed: boolean, shaftNames: string[]): ScoreTerm[] {
   const f = match.factors;
   const strong = match.lines.filter((l) => l.line.sideband === 0 && l.found.snrDb >= 6);
@@ -153,7 +153,7 @@ function ownTerms(cc: ComponentCandidates, fault: Fault, match: PatternMatch, sh
 }
 
 function scoreOne(cc: ComponentCandidates, fault: Fault, input: RankingInput, slip: SlipEstimate | null, shafts: KnownShaft[]): Scored {
-  // Shaft orders whose multiples a bearing line may merely be: the part's own first, then the other parts' (issue 18 item 1).
+  // Shaft orders whose multiples a bearing line may merely be: the part's own first, then the other parts'.
   const own = shafts.filter((s) => s.component === cc.component);
   const ordered = [...own, ...shafts.filter((s) => s.component !== cc.component)];
   const { match, shaftConfirmed, likely } = matchFault(cc, fault, input, slip, ordered.map((s) => s.order));
@@ -273,7 +273,7 @@ const NEAR_EQUAL_FRACTION = 0.01;
 const FAMILY_SIDEBANDS = 3;
 
 /**
- * Explaining away by a stronger pattern's family (issue 18 items 1 and 6): a bearing pattern whose
+ * Explaining away by a stronger pattern's family: a bearing pattern whose
  * found lines are all (or mostly) harmonics of another pattern that scored higher, or their shaft
  * sidebands when that pattern is a race's, reads nothing of its own. Real
  * inner-race envelopes carry k·BPFI ± m·shaft lines for m up to 3 and beyond, which a ball or
@@ -367,7 +367,7 @@ export function rankCapture(drive: DriveDocument, input: RankingInput, options: 
   }
   const envRes = input.envelopes[0]?.spectrum.resolution ?? input.orders.resolution;
   const all = candidateLines(drive, { shopTable: options.shopTable, resolution: { orders: input.orders.resolution, envelope: envRes } });
-  // Every part's own shaft line is measured, fixed-ratio ones too (issue 18 item 5).
+  // Every part's own shaft line is measured, fixed-ratio ones too.
   const slips = new Map(all.filter((cc) => cc.target === 'component').map((cc) => [cc.component, estimateSlip(cc, input.orders)] as const));
   const shafts = knownShafts(all, slips);
   const scored: Scored[] = [];

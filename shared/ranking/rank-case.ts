@@ -1,13 +1,13 @@
 /**
- * Combines the rankings of several captures of one case into one list of suspects (DESIGN.md
- * "Ranking suspects", issue 11 item 4). Terms, each applied on its own:
+ * Combines the rankings of several captures of one case into one list of suspects (docs/design.md
+ * "Ranking suspects"). Terms, each applied on its own:
  * - base: a suspect's best score over the before-repair captures that ran with the belt on;
  * - probe point: a part whose lines are stronger in the capture probed nearest to it than in the
  *   others gains weight (and loses some when they are weaker there);
  * - A/C condition: lines present only with the A/C clutch engaged point at the compressor;
  * - belt off: what remains in a belt-off capture is engine-born, and counts little, except for a
  *   fixed-ratio part (gear, cam or timing-belt driven), which keeps turning with the accessory
- *   belt off (issue 18 item 9);
+ *   belt off;
  * - after-repair captures never re-rank; their scores are reported beside each suspect.
  */
 import type { RankingEntry } from '../analysis/types';

@@ -1,5 +1,5 @@
 /**
- * A ranking score as a list of named terms (STYLE.md §3): the pattern's evidence (0–1) times one
+ * A ranking score as a list of named terms (DEVELOPERS.md, "Signal processing in `shared/`"): the pattern's evidence (0–1) times one
  * factor per judgement (engine orders, shaft multiples, sidebands, slip, other bands, rivals that
  * explain the lines better, …). The total and the evidence sentences are both derived from this
  * one list, so a sentence can never say what the score did not do: a term's reason is printed

@@ -34,7 +34,7 @@ function interpolationErrorDb(freq: number, upsample: boolean): number {
   return 10 * Math.log10(err / pos.length / 0.5);
 }
 
-describe('angle-domain resampling accuracy (issue 18 item 8a)', () => {
+describe('angle-domain resampling accuracy', () => {
   // Keys' cubic alone is accurate only to about 0.1·fs (its frequency response falls off as the
   // tone nears Nyquist; Keys 1981, §IV): measured here about −16 dB at 0.3·fs. Upsampling by two
   // with the 51-tap half-band first puts 0.3·fs at 0.15 of the new rate, where the cubic is good.

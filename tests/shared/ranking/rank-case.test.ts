@@ -100,7 +100,7 @@ describe('rankCase', () => {
   }, 30_000);
 });
 
-describe('rankCase with a part that keeps turning with the belt off (issue 18 item 9)', () => {
+describe('rankCase with a part that keeps turning with the belt off', () => {
   // The diesel's vacuum pump is cam-driven (fixedRatio 0.5): taking the accessory belt off does
   // not stop it, so a pattern still there with the belt off says nothing against it.
   const diesel = drives.i4Diesel;

@@ -62,10 +62,10 @@ describe('idle-i4 equivalents: the alternator outer race against the near-coinci
 
 describe('slipPlausibility', () => {
   // A fixed-race line on one belt with its slip unmeasured: likely −4.94 … 0 % (creep 0–3 %,
-  // REFERENCES.md §5, and cage lag 0–2 %, §4), window −5 … +0.5 % (shared/drive/line-windows.ts).
+  // docs/references.md §5, and cage lag 0–2 %, §4), window −5 … +0.5 % (shared/drive/line-windows.ts).
   const relative = { below: -0.05, above: 0.005, likely: [-0.0494, 0] as [number, number], preferCentre: true };
 
-  it('is flat (1) over the whole likely range, not peaked at one creep (issue 18 item 5)', () => {
+  it('is flat (1) over the whole likely range, not peaked at one creep', () => {
     expect(slipPlausibility(-0.0247, relative, 0)).toBeCloseTo(1, 9);
     expect(slipPlausibility(0, relative, 0)).toBeCloseTo(1, 9);
     expect(slipPlausibility(-0.0494, relative, 0)).toBeCloseTo(1, 9);

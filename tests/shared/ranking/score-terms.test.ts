@@ -13,7 +13,7 @@ import { engineComb, plantedLines, synthInput, synthSpectrum } from './synthetic
 const i4 = parseDriveDocument(i4PetrolJson);
 // The CWRU bearing rig (the open-data kit's test-rig.drive.json): both bearings at fixedRatio 1.0,
 // drive end 6205-2RS (BPFO 3.5848, BPFI 5.4152, 2×BSF 4.7135 × shaft), fan end 6203-2RS (BPFO
-// 3.0530, BPFI 4.9469, 2×BSF 3.9874), the data set's published table (REFERENCES.md §1).
+// 3.0530, BPFI 4.9469, 2×BSF 3.9874), the data set's published table (docs/references.md §1).
 const rig = parseDriveDocument(JSON.parse(readFileSync(new URL('../drive/fixtures/test-rig.drive.json', import.meta.url), 'utf8')));
 const find = (ranking: RankingEntry[], component: string, fault: string) => ranking.find((e) => e.component === component && e.fault === fault)!;
 
@@ -67,7 +67,7 @@ describe('score terms', () => {
   });
 });
 
-describe('shaft-multiple phantoms (issue 18 item 1)', () => {
+describe('shaft-multiple phantoms', () => {
   // A healthy rig's envelope with lines at whole shaft orders (3, 4, 5, 6, 9 × shaft, as the CWRU
   // records show; W. A. Smith and R. B. Randall 2015): the fan-end 6203's BPFO 3.053, 2×BSF 3.987
   // and BPFI 4.947 all lie within their windows of whole orders.
@@ -99,7 +99,7 @@ describe('shaft-multiple phantoms (issue 18 item 1)', () => {
   });
 });
 
-describe('masked lines (issue 18 item 3)', () => {
+describe('masked lines', () => {
   it('counts a line hidden beside a much stronger engine line as unknown, one clear of it as missing', () => {
     const res = 1 / 32;
     const spectrum = synthSpectrum([{ order: 2, snrDb: 40 }, { order: 3.5, snrDb: 8 }], { resolution: res, seed: 4 });
@@ -130,7 +130,7 @@ describe('masked lines (issue 18 item 3)', () => {
   });
 });
 
-describe('envelope harmonics beyond the band (issue 18 item 7)', () => {
+describe('envelope harmonics beyond the band', () => {
   it('does not expect a line above the band width in orders', () => {
     const alt = candidateLines(i4).find((c) => c.component === 'Alternator')!;
     const g = alt.ratio * alt.factors!.bpfo * 0.985;
@@ -146,7 +146,7 @@ describe('envelope harmonics beyond the band (issue 18 item 7)', () => {
   });
 });
 
-describe('ball faults (issue 18 item 6)', () => {
+describe('ball faults', () => {
   it('finds a ball fault showing BSF and its odd multiples without sidebands', () => {
     const de = candidateLines(rig).find((c) => c.component === 'Drive-end bearing')!;
     const bsf = de.factors!.bsf * 0.99;
