@@ -11,7 +11,8 @@
  * naming each other) and the pipeline against our pipeline checks (table of shared/synth/sweep.ts).
  *
  * Flags: --seeds N (default 20), --only TEXT (cases whose name contains it), --no-pipeline-table,
- * --generator today|realistic (which generator settings the sweep uses; default today).
+ * --generator today|real (the generator's `realism`: today's settings, or closer to real engines,
+ * shared/synth/realism.ts; default today).
  * With --data DIR it scores real recordings instead (scripts/real-recordings.ts): DIR holds WAVs
  * and a truth file in the open-data kit's cwru-dev format (DIR/truth.json, or --truth FILE), read
  * with the drive document --drive FILE (default DIR's *.drive.json, else the checkout's test-rig
@@ -45,23 +46,24 @@ interface Case {
   indistinguishableFrom: string[];
 }
 
-interface Args { seeds: number; only: string | null; pipelineTable: boolean; data: string | null; truth: string | null; drive: string | null }
+interface Args { seeds: number; only: string | null; pipelineTable: boolean; data: string | null; truth: string | null; drive: string | null; realism: 'today' | 'real' }
 
 function parse(): Args {
   try {
     const { values } = parseArgs({
       options: {
         seeds: { type: 'string', default: '20' }, only: { type: 'string' }, 'no-pipeline-table': { type: 'boolean', default: false },
-        data: { type: 'string' }, truth: { type: 'string' }, drive: { type: 'string' },
+        data: { type: 'string' }, truth: { type: 'string' }, drive: { type: 'string' }, generator: { type: 'string', default: 'today' },
       },
       allowPositionals: false,
     });
     const seeds = Number(values.seeds);
     if (!Number.isInteger(seeds) || seeds < 1 || seeds > 1000) throw new Error(`--seeds must be a whole number from 1 to 1000, got ${values.seeds}`);
+    if (values.generator !== 'today' && values.generator !== 'real') throw new Error(`--generator must be today or real, got ${values.generator}`);
     if (values.data !== undefined && !existsSync(values.data)) throw new Error(`--data ${values.data}: no such folder; give the folder holding the recordings and their truth.json`);
     return {
       seeds, only: values.only ?? null, pipelineTable: !values['no-pipeline-table'],
-      data: values.data ?? null, truth: values.truth ?? null, drive: values.drive ?? null,
+      data: values.data ?? null, truth: values.truth ?? null, drive: values.drive ?? null, realism: values.generator,
     };
   } catch (error) {
     process.stderr.write(`accuracy: ${(error as Error).message}\n`);
@@ -138,7 +140,7 @@ async function main(): Promise<void> {
     const verdicts: RankingVerdict[] = [];
     let planted = '';
     for (let seed = 1; seed <= args.seeds; seed += 1) {
-      const capture = generateCapture({ ...c.options, drive: c.drive, seed });
+      const capture = generateCapture({ ...c.options, drive: c.drive, seed, realism: args.realism });
       const fault = capture.truth.fault!;
       planted = `${fault.component} / ${fault.fault}`;
       const settings = AnalysisSettingsSchema.parse(settingsFromTruth(capture.truth));
@@ -170,7 +172,7 @@ async function main(): Promise<void> {
   const pairsOk = pairs.filter((v) => v.pairNamed).length;
   lines.push(`all | | ${n} | ${pct(top1, n)} | ${pct(top1f, n)} | ${pct(top3, n)} | ${pairs.length === 0 ? '—' : pct(pairsOk, pairs.length)}`);
   const verdict = (ok: boolean) => (ok ? 'met' : 'MISSED');
-  process.stdout.write(`\nRanking accuracy (${args.seeds} seeds per case; our targets)\n\n${lines.join('\n')}\n\n`);
+  process.stdout.write(`\nRanking accuracy (${args.seeds} seeds per case, generator ${args.realism}; our targets)\n\n${lines.join('\n')}\n\n`);
   process.stdout.write(`planted part first ${pct(top1, n)} (target ≥ 95 %: ${verdict(top1 / n >= 0.95)}); part and fault first ${pct(top1f, n)} (target ≥ 90 %: ${verdict(top1f / n >= 0.9)}); `
     + `part in the top three ${pct(top3, n)} (target 100 %: ${verdict(top3 === n)}); pairs named ${pairs.length === 0 ? '—' : pct(pairsOk, pairs.length)} (target 100 %: ${verdict(pairsOk === pairs.length)})\n`);
   if (args.pipelineTable) process.stdout.write(`\nPipeline accuracy on the same runs (our pipeline checks)\n\n${formatSweepTable(sweepRows)}\n`);
