@@ -342,6 +342,34 @@ function shaftConfirmedRivalTerm(rival: Scored, scored: readonly Scored[], res: 
   };
 }
 
+/** A shaft pattern this many dB above the median of the other parts' shaft lines counts fully; at or below it, `STANDS_OUT_FLOOR`. */
+const STANDS_OUT_DB = 12;
+const STANDS_OUT_FLOOR = 0.3;
+
+/**
+ * Every part turns, so every part shows some 1× (unbalance within grade): a shaft fault is a
+ * 1×/2× that stands out against the drive's other shaft lines, not a line that is merely there.
+ * The factor rises from 0.3 (no stronger than the median of the other parts' strongest shaft
+ * lines) to 1 at 12 dB above it. Parts reading the very same line (a near-equal ratio) are left
+ * out of the comparison.
+ */
+function standsOutTerm(s: Scored, scored: readonly Scored[], res: number): ScoreTerm | null {
+  if (s.fault !== 'shaft' || s.match.spectrumIndex < 0) return null;
+  const strongest = (x: Scored) => Math.max(0, ...x.match.lines.filter((l) => l.line.sideband === 0).map((l) => l.found.snrDb));
+  const own = s.match.lines.filter((l) => l.line.sideband === 0).map((l) => l.found.order);
+  const others = scored.filter((o) => o.fault === 'shaft' && o.candidates.component !== s.candidates.component && o.candidates.target === 'component'
+    && !o.match.lines.some((l) => own.some((x) => Math.abs(x - l.found.order) <= res)));
+  if (others.length === 0) return null;
+  const levels = others.map(strongest).sort((a, b) => a - b);
+  const median = levels[Math.floor(levels.length / 2)];
+  const above = strongest(s) - median;
+  const factor = STANDS_OUT_FLOOR + (1 - STANDS_OUT_FLOOR) * Math.max(0, Math.min(1, above / STANDS_OUT_DB));
+  return {
+    name: 'stands_out', factor,
+    reason: `its shaft lines stand only ${Math.max(0, above).toFixed(0)} dB above the other parts' shaft lines (every part turns and shows some 1×)`,
+  };
+}
+
 /** Shaft orders the capture fixes: fixed-ratio parts' ratios and the parts' measured shaft lines. */
 function knownShafts(all: readonly ComponentCandidates[], slips: Map<string, SlipEstimate | null>): KnownShaft[] {
   const out: KnownShaft[] = [];
@@ -384,7 +412,7 @@ export function rankCapture(drive: DriveDocument, input: RankingInput, options: 
   const maxOrder = Math.max(topOrder(input.orders), ...input.envelopes.map((b) => topOrder(b.spectrum)));
   const rivalTerms = scored.map((s) => {
     const harmonics = harmonicsTerm(s, scored, res);
-    return [harmonics ?? familyTerm(s, scored, res), shaftConfirmedRivalTerm(s, scored, res, maxOrder)].filter((t): t is ScoreTerm => t !== null);
+    return [harmonics ?? familyTerm(s, scored, res), shaftConfirmedRivalTerm(s, scored, res, maxOrder), standsOutTerm(s, scored, res)].filter((t): t is ScoreTerm => t !== null);
   });
   scored.forEach((s, i) => {
     s.terms.push(...rivalTerms[i]);
