@@ -13,6 +13,7 @@ import { envelopeSpectra } from './envelope-spectrum';
 import { commonFiringOrder } from './firing-order';
 import { orderPeaks } from './order-peaks';
 import { orderSpectrum } from './order-spectrum';
+import { type OrderMap, orderMap, SWEEP_RATIO } from './order-tracks';
 import { type PickupSpeedTrack, referenceFromTrack, trackSpeedFromPickup } from './pickup-speed';
 import { extractReference, type ReferenceResult } from './reference';
 import { spectrogram } from './spectrogram';
@@ -164,6 +165,10 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
   }
   const xAng = resampleAtAngles(xO, fsO, crank.timeAt, crank.firstDeg, count, spr);
   const orders = orderSpectrum(xAng, spr, rpb, maxOrder, plans);
+  // A sweep (run-up, run-down) also gets an order map, for order tracks against rpm (issue 20 item 5).
+  const sweepMap: OrderMap | undefined = speed.maxRpm >= SWEEP_RATIO * speed.minRpm && revs >= 16
+    ? orderMap(xAng, spr, crank.firstDeg, (deg) => crank.timeAt.at(deg), maxOrder, plans)
+    : undefined;
   t.orders = clock() - t0;
 
   // 5. Envelope of the residual after the 720° average, in the angle domain at a high rate.
@@ -253,6 +258,7 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
     },
     cycle,
     spectrogram: spec,
+    ...(sweepMap ? { orderMap: sweepMap } : {}),
     ranking,
     warnings,
     timingsMs: {

@@ -6,6 +6,7 @@
  */
 
 import type { AnalysisSettings } from '../schemas/analysis-settings';
+import type { OrderMap } from './order-tracks';
 
 export interface Peak {
   order: number;
@@ -194,6 +195,8 @@ export interface AnalysisResult {
   envelope: EnvelopeResult;
   cycle: CycleResult;
   spectrogram: SpectrogramResult;
+  /** Order map of a sweep (speed spanning ≥ 1.2×), for order tracks (shared/analysis/order-tracks.ts). */
+  orderMap?: OrderMap;
   ranking: RankingEntry[];
   warnings: Warning[];
   timingsMs: AnalysisTimingsMs;
