@@ -6,9 +6,9 @@
  * truly indistinguishable pair, creep to 3 %, SNR to −3 dB, distractors) and the generator's
  * standard and clunk cases for each engine (shared/synth/sweep.ts: every reference kind, speed
  * wander to ±5 %) are generated for seeds 1…N, analysed once by the pipeline with the ranking, and
- * judged twice: the ranking against issue 11's targets (planted part first ≥ 95 %, part and fault
+ * judged twice: the ranking against our targets (planted part first ≥ 95 %, part and fault
  * first ≥ 90 %, part in the top three in all runs, indistinguishable pairs both in the top two
- * naming each other) and the pipeline against issue 10's checks (table of shared/synth/sweep.ts).
+ * naming each other) and the pipeline against our pipeline checks (table of shared/synth/sweep.ts).
  *
  * Flags: --seeds N (default 20), --only TEXT (cases whose name contains it), --no-pipeline-table.
  * A report, not a test: it prints tables and exits 0 unless the arguments are bad.
@@ -118,10 +118,10 @@ function main(): void {
   const pairsOk = pairs.filter((v) => v.pairNamed).length;
   lines.push(`all | | ${n} | ${pct(top1, n)} | ${pct(top1f, n)} | ${pct(top3, n)} | ${pairs.length === 0 ? '—' : pct(pairsOk, pairs.length)}`);
   const verdict = (ok: boolean) => (ok ? 'met' : 'MISSED');
-  process.stdout.write(`\nRanking accuracy (${args.seeds} seeds per case; issue 11 targets)\n\n${lines.join('\n')}\n\n`);
+  process.stdout.write(`\nRanking accuracy (${args.seeds} seeds per case; our targets)\n\n${lines.join('\n')}\n\n`);
   process.stdout.write(`planted part first ${pct(top1, n)} (target ≥ 95 %: ${verdict(top1 / n >= 0.95)}); part and fault first ${pct(top1f, n)} (target ≥ 90 %: ${verdict(top1f / n >= 0.9)}); `
     + `part in the top three ${pct(top3, n)} (target 100 %: ${verdict(top3 === n)}); pairs named ${pairs.length === 0 ? '—' : pct(pairsOk, pairs.length)} (target 100 %: ${verdict(pairsOk === pairs.length)})\n`);
-  if (args.pipelineTable) process.stdout.write(`\nPipeline accuracy on the same runs (issue 10 checks)\n\n${formatSweepTable(sweepRows)}\n`);
+  if (args.pipelineTable) process.stdout.write(`\nPipeline accuracy on the same runs (our pipeline checks)\n\n${formatSweepTable(sweepRows)}\n`);
   process.stdout.write(`\n${n} runs in ${((performance.now() - t0) / 1000).toFixed(0)} s\n`);
 }
 

@@ -99,7 +99,7 @@ ${table}
 Growth from 10 s to 60 s at 48 kHz: ${growth.toFixed(2)}× in pipeline time, against ${bound.toFixed(2)}× for
 n log n (and 6× for linear).
 
-Targets (issue 10), for 60 s at 48 kHz, against this run:
+Our targets, for 60 s at 48 kHz, against this run:
 
 | target | measured | met |
 |---|---|---|

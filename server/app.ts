@@ -16,7 +16,7 @@ import type { Mailer } from './mail/mailer';
 import { createCsrf } from './middleware/csrf';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { requestId } from './middleware/request-id';
-import { resetRequestLimit, signInLimit } from './middleware/signin-limit';
+import { resetRequestLimit, signInIpLimit, signInLimit } from './middleware/signin-limit';
 import { buildRouter } from './routes/build-router';
 import { routeTable } from './routes/route-table';
 
@@ -64,6 +64,7 @@ export function createApp(options: CreateAppOptions): Express {
     logger,
     passport: createPassport(env.BCRYPT_ROUNDS),
     signInLimiter: signInLimit(env.SIGNIN_MAX_FAILURES, env.SIGNIN_WINDOW_MIN),
+    signInIpLimiter: signInIpLimit(env.SIGNIN_IP_MAX_FAILURES, env.SIGNIN_WINDOW_MIN),
     resetLimiter: resetRequestLimit(),
     csrf: createCsrf(sessionSecret, secure),
     publicUrl: publicUrl(env),

@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import { createApp } from './app';
 import { createSequelize } from './db/sequelize';
 import { migrate } from './db/migrator';
-import type { Env } from './env';
+import { mailFakeWarning, type Env } from './env';
 import type { Logger } from './logger';
 import { startMailFake, type MailFake } from './mail/fake-smtp';
 import { createSmtpMailer } from './mail/mailer';
@@ -36,6 +36,8 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
 
   let fake: MailFake | null = null;
   let mailUrl = env.MAIL_URL;
+  const warning = mailFakeWarning(env);
+  if (warning) logger.warn(warning);
   if (!mailUrl) {
     fake = await startMailFake(env.MAIL_FAKE_PORT, logger.child({ component: 'mail-fake' })).catch((error: unknown) => {
       throw portError(error, env.MAIL_FAKE_PORT, 'MAIL_FAKE_PORT');

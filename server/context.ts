@@ -14,7 +14,10 @@ export interface AppContext {
   mailer: Mailer;
   logger: Logger;
   passport: passportModule.Authenticator;
+  /** Failed sign-ins per IP + e-mail. */
   signInLimiter: RequestHandler;
+  /** Failed sign-ins per IP across addresses (password spraying); runs before signInLimiter. */
+  signInIpLimiter: RequestHandler;
   resetLimiter: RequestHandler;
   csrf: Csrf;
   /** Base URL for e-mailed links, without a trailing slash. */

@@ -5,7 +5,7 @@ import { type TaskMap, type TaskName } from '../shared/tasks';
 import { projectRoot } from './paths';
 
 /**
- * The one Piscina pool of the server process (STYLE.md §4). Workers load the built JavaScript
+ * The one Piscina pool of the server process (DEVELOPERS.md "Workers and the job runner"). Workers load the built JavaScript
  * (dist/node/workers/analysis.js, made by `npm run build:node`): Node 20 cannot load .ts in a
  * worker thread. One thread per core but one, at least one; created on first use.
  */

@@ -1,5 +1,5 @@
 /**
- * The worker task map (STYLE.md §4): each task's name with its input and output types. The
+ * The worker task map (DEVELOPERS.md "Workers and the job runner"): each task's name with its input and output types. The
  * piscina entry points (workers/analysis.ts) declare their handlers with
  * `satisfies TaskHandlers<TaskMap>` and server/pool.ts's `runTask(name, input)` is typed from the
  * same map, so a name or type that drifts fails to compile. Outputs carry long series as float32

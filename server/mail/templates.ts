@@ -40,3 +40,22 @@ export function resetMail(link: string, ttlMinutes: number): MailContent {
     html: html(lines, link, 'Choose a new password'),
   };
 }
+
+/**
+ * Sent instead of an invitation when the invited address already has an account in another shop:
+ * the inviting admin gets the same answer as for any invite (no hint that the address is known),
+ * and the owner of the address learns what happened and what to do.
+ */
+export function inviteExistingAccountMail(shopName: string, publicUrl: string): MailContent {
+  const lines = [
+    `An admin of ${shopName} invited this address to join their shop on Crankwise.`,
+    'This address already has a Crankwise account in another shop, and an address belongs to one shop only, so no invitation link was created for you.',
+    `If you want to join ${shopName}, ask them to invite a different address. If you did not expect this, you can ignore this e-mail; your account is unchanged.`,
+  ];
+  const body = lines.map((p) => `<p>${escape(p)}</p>`).join('\n');
+  return {
+    subject: `${shopName} tried to invite you to Crankwise`,
+    text: `${lines.join('\n\n')}\n\nSign in: ${publicUrl}/sign-in\n`,
+    html: `${body}\n<p><a href="${escape(`${publicUrl}/sign-in`)}">Sign in to your account</a></p>`,
+  };
+}

@@ -1,8 +1,9 @@
 // Turns every error into `{ error: { code, message, details? } }` with the right status.
 import type { ErrorRequestHandler, RequestHandler } from 'express';
-import { UniqueConstraintError, ValidationError as SequelizeValidationError, ForeignKeyConstraintError } from 'sequelize';
+import { BaseError as SequelizeBaseError, UniqueConstraintError, ValidationError as SequelizeValidationError, ForeignKeyConstraintError } from 'sequelize';
 import { ZodError } from 'zod';
 import { AppError } from '../errors';
+import { loggablePath } from './request-id';
 
 /** `a.b.0` style path of a zod issue; `(body)` for the whole object. */
 function issuePath(path: PropertyKey[]): string {
@@ -40,15 +41,69 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, next) 
     const details = err.errors.map((e) => ({ path: e.path ?? '(body)', message: e.message }));
     appError = new AppError(400, 'validation_failed', details[0] ? `${details[0].path}: ${details[0].message}` : err.message, details);
   } else if (isBodyParserError(err)) {
-    appError = new AppError(err.status, err.status === 413 ? 'payload_too_large' : 'bad_request', err.status === 413 ? 'The request body is too large' : 'The request body is not valid JSON');
+    appError = bodyParserAppError(err);
+  } else if (err instanceof URIError) {
+    // Express decodes path parameters before any route runs; a malformed %-escape throws here.
+    appError = new AppError(400, 'bad_request', 'The address has a malformed %-escape; check the link or type the address again');
+  } else if (clientErrorStatus(err) !== null) {
+    // Any other 4xx thrown by middleware before a route's validation (http-errors style).
+    appError = new AppError(clientErrorStatus(err)!, 'bad_request', 'The request could not be read; check the address and what was sent, then try again');
   } else {
-    (req.log ?? console).error('unhandled error', { error: err instanceof Error ? err : String(err), path: req.path });
+    const log = req.log ?? console;
+    log.error('unhandled error', { error: loggableError(err), path: loggablePath(req.originalUrl ?? req.path) });
+    const sql = sqlOf(err);
+    if (sql) log.debug('failed statement', { sql });
     appError = new AppError(500, 'internal_error', 'Something went wrong on the server; try again, and tell your admin if it keeps happening');
   }
   res.status(appError.status).json({
     error: { code: appError.code, message: appError.message, ...(appError.details !== undefined ? { details: appError.details } : {}) },
   });
 };
+
+/** The 4xx status an http-errors style error carries (`status`/`statusCode`), else null. */
+function clientErrorStatus(err: unknown): number | null {
+  if (typeof err !== 'object' || err === null) return null;
+  const e = err as { status?: unknown; statusCode?: unknown };
+  const status = typeof e.status === 'number' ? e.status : typeof e.statusCode === 'number' ? e.statusCode : null;
+  return status !== null && Number.isInteger(status) && status >= 400 && status < 500 ? status : null;
+}
+
+/** The SQL text a database error carries (Sequelize `sql`, the driver's `sql`), if any. */
+function sqlOf(err: unknown): string | undefined {
+  if (!(err instanceof SequelizeBaseError)) return undefined;
+  const e = err as SequelizeBaseError & { sql?: string; original?: { sql?: string } };
+  return e.sql ?? e.original?.sql;
+}
+
+/**
+ * An error as a log field without the statement and its values: the mariadb driver appends
+ * `sql: …` (with the submitted values inlined by Sequelize) to its messages, and Sequelize copies
+ * them; those must not reach a log at the default level. The statement goes to `debug` only.
+ */
+export function loggableError(err: unknown): Record<string, unknown> | string {
+  if (!(err instanceof Error)) return String(err);
+  if (!(err instanceof SequelizeBaseError)) return err as unknown as Record<string, unknown>;
+  const e = err as SequelizeBaseError & { original?: { code?: string; errno?: number; sqlState?: string; text?: string } };
+  const strip = (text: string) => text.split('\nsql: ')[0]!;
+  return {
+    name: e.name,
+    message: strip(e.original?.text ?? e.message),
+    code: e.original?.code,
+    errno: e.original?.errno,
+    sqlState: e.original?.sqlState,
+    stack: (e.stack ?? '').split('\n').filter((line) => line.trimStart().startsWith('at ')).join('\n'),
+  };
+}
+
+/** The body parser's 4xx in the one error shape, with a message saying what to send instead. */
+function bodyParserAppError(err: { status: number; type: string }): AppError {
+  if (err.status === 413) return new AppError(413, 'payload_too_large', 'The request body is too large');
+  if (err.type === 'charset.unsupported' || err.type === 'encoding.unsupported') {
+    return new AppError(415, 'unsupported_media_type', 'Send the request body as uncompressed UTF-8 JSON');
+  }
+  if (err.type === 'entity.parse.failed') return new AppError(400, 'bad_request', 'The request body is not valid JSON');
+  return new AppError(err.status, 'bad_request', 'The request body could not be read; send it again as JSON');
+}
 
 function isBodyParserError(err: unknown): err is { status: number; type: string } {
   return (

@@ -1,5 +1,7 @@
-// Sign-in rate limit keyed on client IP + lower-cased e-mail: only failed attempts count, so a shop
-// signing many people in from one address (or a test suite) is never throttled.
+// Sign-in rate limits: failures per client IP + lower-cased e-mail (guessing one person's password),
+// stacked with failures per client IP across every address (password spraying: a few guesses at
+// many addresses). Only failed attempts count, so a shop signing many people in from one address
+// (or a test suite) is never throttled.
 import type { Request, RequestHandler } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 
@@ -23,6 +25,31 @@ export function signInLimit(maxFailures: number, windowMin: number): RequestHand
         error: {
           code: 'too_many_attempts',
           message: `Too many failed sign-ins for this address; wait ${windowMin} minutes or reset your password`,
+        },
+      });
+    },
+  });
+}
+
+/**
+ * At most `maxFailures` failed sign-ins per client IP (IPv6 by /56 subnet) across all e-mail
+ * addresses per `windowMin` minutes; then 429 `too_many_attempts`. Runs before the per-address
+ * limit, so spraying 30 addresses × 9 guesses from one IP stops at `maxFailures`. Generous by
+ * default (100 per 15 minutes) because a whole shop may sign in from one address.
+ */
+export function signInIpLimit(maxFailures: number, windowMin: number): RequestHandler {
+  return rateLimit({
+    windowMs: windowMin * 60_000,
+    limit: maxFailures,
+    skipSuccessfulRequests: true,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    keyGenerator: (req) => ipKeyGenerator(req.ip ?? ''),
+    handler: (_req, res) => {
+      res.status(429).json({
+        error: {
+          code: 'too_many_attempts',
+          message: `Too many failed sign-ins from this network; wait ${windowMin} minutes, or ask your admin to reset your password`,
         },
       });
     },

@@ -3,7 +3,7 @@ import { BEARING_SOURCES, type BearingSource } from '../../shared/schemas/bearin
 import type { Shop } from './shop';
 
 /**
- * A shop's bearing by designation (DESIGN.md "BearingType"). `designationKey` is the designation
+ * A shop's bearing by designation (docs/design.md "Domain model"). `designationKey` is the designation
  * as the kinematics match it (upper case, seal suffix dropped), unique per shop.
  */
 export class BearingType extends Model<InferAttributes<BearingType>, InferCreationAttributes<BearingType>> {

@@ -40,7 +40,12 @@ export const authRoutes: RouteRow[] = [
     path: '/auth/sign-in',
     roles: 'public',
     summary: 'sign in with e-mail and password',
-    handlers: [validate({ body: SignInSchema }), (req, res, next) => appContext(req).signInLimiter(req, res, next), signIn],
+    handlers: [
+      validate({ body: SignInSchema }),
+      (req, res, next) => appContext(req).signInIpLimiter(req, res, next),
+      (req, res, next) => appContext(req).signInLimiter(req, res, next),
+      signIn,
+    ],
   },
   {
     method: 'post',

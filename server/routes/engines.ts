@@ -1,5 +1,5 @@
 // The Drive library's engines: list, read, create, update, delete, duplicate, import and export.
-// Reads for every role; writes for lead and admin (DESIGN.md "Who uses it").
+// Reads for every role; writes for lead and admin (docs/design.md "Who uses it").
 import express, { type RequestHandler } from 'express';
 import multer from 'multer';
 import { LEAD_AND_ADMIN } from '../../shared/auth/access';

@@ -6,7 +6,7 @@ import { hashToken, newToken } from '../auth/tokens';
 import type { AppContext } from '../context';
 import { AppError, tokenInvalid } from '../errors';
 import { Invite, Shop, User } from '../models';
-import { inviteMail } from '../mail/templates';
+import { inviteExistingAccountMail, inviteMail } from '../mail/templates';
 
 /** A shop's invites, newest first. */
 export async function listInvites(shopId: number): Promise<Invite[]> {
@@ -17,11 +17,15 @@ export async function listInvites(shopId: number): Promise<Invite[]> {
  * Invites `email` into the admin's shop with `role` and e-mails a one-time link valid for
  * INVITE_TTL_HOURS. A pending invite to the same address in the shop is replaced. The row is
  * committed only once the mail server accepted the message, so no invite exists without its mail.
- * 409 `email_in_use` when the address already has an account.
+ * 409 `email_in_use` when the address already belongs to a user of this shop (the admin sees them
+ * on the Team page anyway). An address with an account in ANOTHER shop is answered exactly like
+ * any invite (so the answer reveals nothing about other shops' users); its owner gets a notice
+ * instead of a link, and the pending row holds a token nobody was sent, so it can never be accepted.
  */
 export async function createInvite(ctx: AppContext, admin: User, input: CreateInvite): Promise<Invite> {
-  if (await User.findOne({ where: { email: input.email } })) {
-    throw new AppError(409, 'email_in_use', `${input.email} already has a Crankwise account`);
+  const existing = await User.findOne({ where: { email: input.email } });
+  if (existing && existing.shopId === admin.shopId) {
+    throw new AppError(409, 'email_in_use', `${input.email} already belongs to someone in your shop; see the Team page`);
   }
   const shop = await Shop.findByPk(admin.shopId);
   if (!shop) throw new AppError(404, 'not_found', 'Shop not found');
@@ -40,9 +44,11 @@ export async function createInvite(ctx: AppContext, admin: User, input: CreateIn
       },
       { transaction },
     );
-    const mail = inviteMail(shop.name, ROLE_LABELS[input.role], `${ctx.publicUrl}/invite/${token}`, ttlHours);
+    const outgoing = existing
+      ? { to: input.email, ...inviteExistingAccountMail(shop.name, ctx.publicUrl), shopId: existing.shopId }
+      : { to: input.email, ...inviteMail(shop.name, ROLE_LABELS[input.role], `${ctx.publicUrl}/invite/${token}`, ttlHours), shopId: shop.id };
     try {
-      await ctx.mailer.send({ to: input.email, ...mail, shopId: shop.id });
+      await ctx.mailer.send(outgoing);
     } catch (error) {
       // Rolls the invite back: no invitation exists that its invitee never received.
       ctx.logger.error('invitation mail failed', { error, task: 'invite' });

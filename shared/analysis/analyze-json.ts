@@ -1,8 +1,8 @@
 import { type AnalysisResult, type Peak } from './types';
 
 /**
- * The `analyze --json` object (issue 10 §6; issue 20 adds speed.source, speed.fromPickup and
- * cycle.available, only when speed was read from the pickup), exactly: capture, settings, speed, orders, envelope,
+ * The `analyze --json` object (docs/analyze-json.md gives every field; issue 20 adds speed.source,
+ * speed.fromPickup and cycle.available only when speed was read from the pickup), exactly: capture, settings, speed, orders, envelope,
  * cycle, ranking, warnings, timingsMs — typed arrays and internal fields left out, numbers
  * rounded to what the measurement supports.
  */

@@ -4,7 +4,7 @@ import { type ReferenceResult } from './reference';
 import { type SpeedResult } from './types';
 
 /**
- * Crank angle as a smooth monotone function of time (DESIGN.md step 3): a Fritsch–Carlson cubic
+ * Crank angle as a smooth monotone function of time (docs/design.md step 3): a Fritsch–Carlson cubic
  * through (edge time, edge angle) in float64, plus the inverse t(θ) through the same knots for
  * resampling at constant angle. rpm(t) = (dθ/dt in °/s) / 6. Per-revolution rpm is 60 / (time of
  * each whole 360°); min/max come from those; mean rpm = whole revolutions / their time;

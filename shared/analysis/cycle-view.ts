@@ -5,7 +5,7 @@ import { synchronousAverage } from './synchronous-average';
 import { type CycleEvent, type CycleResult } from './types';
 
 /**
- * The engine-cycle view (DESIGN.md step 6) over 720° from cylinder-1 TDC.
+ * The engine-cycle view (docs/design.md step 6) over 720° from cylinder-1 TDC.
  * - `averageDeg`: the synchronous average of the pickup per degree (what is locked to the cycle).
  * - `rmsDeg`: a short-window RMS per degree in the band where the cycle's energy varies most with
  *   angle. It comes from an angle-domain STFT of the first difference (which tilts the spectrum

@@ -3,7 +3,7 @@ import { spectralKurtosis } from '../dsp/spectral-kurtosis';
 import { type StftOptions, stftFrameCount, visitStftPower } from '../dsp/stft';
 
 /**
- * Automatic envelope band (DESIGN.md step 5): spectral kurtosis (Antoni 2006) of the residual
+ * Automatic envelope band (docs/design.md step 5): spectral kurtosis (Antoni 2006) of the residual
  * after the 720° average was subtracted, estimated with two STFT frame lengths (about 3 ms and
  * 12 ms, like two levels of a kurtogram; Antoni 2007), scored per candidate band as the mean SK of
  * its bins, best of the two. Ticks that ring a little differently every cycle survive the

@@ -4,7 +4,7 @@ import { type BandCandidate, type BandSearch, bandsOverlap, kurtosisBands } from
 import { envelopeSpectra } from './envelope-spectrum';
 
 /**
- * The automatic envelope band (DESIGN.md step 5) in two looks. Spectral kurtosis of the residual
+ * The automatic envelope band (docs/design.md step 5) in two looks. Spectral kurtosis of the residual
  * (envelope-band.ts) proposes its best bands; a plain grid of bands twice the minimum width, in
  * steps of ¾ width (every resonance falls well inside one), adds the rest of the usable range,
  * because at a low SNR a fault's impacts barely move the kurtosis. Every candidate then gets a

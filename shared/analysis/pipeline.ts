@@ -21,7 +21,7 @@ import { subtractAverage, synchronousAverage } from './synchronous-average';
 import { type AnalysisResult, type EnvelopeBand, type RankingEntry, type RankingInput, type Warning } from './types';
 
 /**
- * The analysis pipeline (DESIGN.md steps 1–8) over decoded channels: reference edges → crank angle
+ * The analysis pipeline (docs/design.md steps 1–8) over decoded channels: reference edges → crank angle
  * and speed → order spectrum of the pickup → envelope of the best impulsive bands (residual after
  * the 720° average) → engine-cycle view → spectrogram → peaks → ranking (when the caller passes
  * `rank`, built from a drive document; shared/analysis never imports the ranking). The CLI, the

@@ -6,7 +6,7 @@ import { type Warning } from './types';
 import { wheelAngles } from './wheel';
 
 /**
- * From the reference channel to crank angle at each edge (DESIGN.md step 2). Angles are crank
+ * From the reference channel to crank angle at each edge (docs/design.md step 2). Angles are crank
  * degrees from the first accepted edge (wheel: from the first tooth after the first gap). The
  * four-stroke cycle is 720° [common practice; Heywood 1988, from memory]: `cyl1` gives one pulse
  * per cycle, `per-rev` one per revolution, `per-cylinder` cylinders per cycle, `refPerCycle` N

@@ -2,7 +2,7 @@ import { median } from '../dsp/stats';
 import { type Warning } from './types';
 
 /**
- * Repair of a pulse train with evenly spaced pulses (DESIGN.md step 2): an extra pulse (a glitch,
+ * Repair of a pulse train with evenly spaced pulses (docs/design.md step 2): an extra pulse (a glitch,
  * or ringing past the dead time) splits one nominal interval in two and is removed — of the two
  * close pulses, the one that sits worse on the grid of the pulse before; a missed pulse
  * leaves an interval of about twice the nominal one and is inserted midway. Nominal = running

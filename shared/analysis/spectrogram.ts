@@ -3,11 +3,11 @@ import { stftAmplitude } from '../dsp/stft';
 import { type CrankAngle } from './crank-speed';
 import { type SpectrogramResult } from './types';
 
-/** Largest spectrogram kept: frames × bins ≤ 1M floats (4 MiB as float32, STYLE.md §6). */
+/** Largest spectrogram kept: frames × bins ≤ 1M floats (4 MiB as float32, DEVELOPERS.md "Database: Sequelize and umzug"). */
 export const SPECTROGRAM_MAX_FLOATS = 1 << 20;
 
 /**
- * Spectrogram of the pickup (DESIGN.md step 7): Hann STFT with frames of about 40 ms (bins of
+ * Spectrogram of the pickup (docs/design.md step 7): Hann STFT with frames of about 40 ms (bins of
  * about 25 Hz), the hop raised until frames × bins ≤ 1M floats, with rpm(t) at every frame centre.
  */
 export function spectrogram(x: Float64Array, sampleRateHz: number, crank: CrankAngle, plans: FftPlanCache): SpectrogramResult {

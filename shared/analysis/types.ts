@@ -1,5 +1,5 @@
 /**
- * The result of one pipeline run over a capture (DESIGN.md "The analysis pipeline"). The CLI's
+ * The result of one pipeline run over a capture (docs/design.md "The analysis pipeline"). The CLI's
  * `--json` output is a projection of this (typed arrays dropped); the ranking reads the spectra.
  * Orders are multiples of crank speed; amplitudes are single-sided peak amplitudes in input units
  * times the channel scale, corrected for the window's coherent gain.
@@ -186,7 +186,7 @@ export interface SpectrogramResult {
   rpm: Float32Array;
 }
 
-/** One whole pipeline run (DESIGN.md steps 1–8). `toAnalyzeJson` projects it to the CLI's JSON. */
+/** One whole pipeline run (docs/design.md steps 1–8). `toAnalyzeJson` projects it to the CLI's JSON. */
 export interface AnalysisResult {
   capture: CaptureInfo;
   settings: AnalysisSettings;

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 
 /**
- * The four roles of a shop's users (DESIGN.md "Who uses it"), least to most privileged.
+ * The four roles of a shop's users (docs/design.md "Who uses it"), least to most privileged.
  * A role grants only what the route access table (server/routes/route-table.ts) lists for it;
  * the order here is used for display and for "at least" checks, never as a substitute for the table.
  */
@@ -37,7 +37,7 @@ export const NAV_SECTIONS = [
 /** One navigation section key. */
 export type NavSection = (typeof NAV_SECTIONS)[number];
 
-/** Labels for the navigation sections (Crankwise's own screen names, DESIGN.md "Screens"). */
+/** Labels for the navigation sections (Crankwise's own screen names, docs/design.md "Screens"). */
 export const NAV_LABELS: Record<NavSection, string> = {
   cases: 'Cases',
   'drive-library': 'Drive library',

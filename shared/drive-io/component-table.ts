@@ -17,7 +17,7 @@ export const COMPONENT_CSV_HEADERS = [
 /** One header of the component table. */
 export type ComponentCsvHeader = (typeof COMPONENT_CSV_HEADERS)[number];
 
-/** Every component kind the drive document accepts (DESIGN.md "Domain model"). */
+/** Every component kind the drive document accepts (docs/design.md "Domain model"). */
 export const COMPONENT_KINDS: readonly ComponentKind[] = [
   'crankshaft', 'alternator', 'water_pump', 'power_steering', 'ac_compressor',
   'idler', 'tensioner', 'fan', 'vacuum_pump', 'other',

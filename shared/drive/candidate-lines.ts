@@ -1,6 +1,6 @@
 /**
  * Every crank order at which a part of the drive can show, with its match window and flags
- * (DESIGN.md "Ranking suspects"): ratio × (shaft 1×, 2×; FTF, BPFO, BPFI, 2×BSF and their 1×–3×
+ * (docs/design.md "Ranking suspects"): ratio × (shaft 1×, 2×; FTF, BPFO, BPFI, 2×BSF and their 1×–3×
  * harmonics; sidebands) and the belt-pass order of each belt. Shaft and belt lines are looked for
  * in the raw order spectrum, bearing lines in the envelope spectrum.
  */

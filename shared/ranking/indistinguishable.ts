@@ -2,7 +2,7 @@
  * Which suspects a capture cannot tell apart: two parts whose WHOLE line patterns for a fault
  * coincide (every harmonic, sideband and shaft line within a bin or 0.5 % of each other), e.g.
  * two idlers of the same diameter and bearing on one belt. One shared window is common and does
- * not count (DESIGN.md "Ranking suspects").
+ * not count (docs/design.md "Ranking suspects").
  */
 import type { CandidateLine, ComponentCandidates, Fault } from '../drive/types';
 

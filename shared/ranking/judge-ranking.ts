@@ -1,5 +1,5 @@
 /**
- * Judges a capture's ranking against what was planted in it (issue 11 "Checks"): the planted
+ * Judges a capture's ranking against what was planted in it (our targets, as scripts/accuracy.ts reports them): the planted
  * part first (counting distinct components, a belt as one), the planted part and fault first,
  * the planted part among the first three; and, where the planted part has truly
  * indistinguishable partners (same ratio and bearing), both in the top two naming each other.

@@ -65,7 +65,7 @@ const COMB_ABSENT_DB = 4;
  * Weight of a line on the engine's 0.5-order comb, judged from the whole pattern: more of its
  * harmonics off the comb make it likelier the part's own. In the raw order spectrum the engine's
  * lines are always there; the envelope spectra are taken from the residual after the 720°
- * average (DESIGN.md step 5), which removes most of them, so a comb line there counts more; and
+ * average (docs/design.md step 5), which removes most of them, so a comb line there counts more; and
  * where such a residual shows no comb at all (median SNR at the multiples under 4 dB), it counts
  * fully. (The raw spectrum's comb fades at high orders, so its median says nothing there.)
  */
@@ -137,7 +137,7 @@ function evaluate(spectrum: OrderSpectrum, f: number, search: PatternSearch, spe
     carrierTotal += weight * lineStrength(c.found.snrDb);
     lines.push({ line: c.line, found: c.found, onComb, cycleGain: gain(c.found.order), weight });
   }
-  // Sidebands confirm (DESIGN.md): a sideband sits about 8–12 dB below its carrier, so it is
+  // Sidebands confirm (docs/design.md): a sideband sits about 8–12 dB below its carrier, so it is
   // judged 9 dB more leniently, and its absence counts only as far as the carrier's strength
   // made it expected. A pattern whose kind has no sidebands neither gains nor loses by them.
   let sbPossible = 0;

@@ -1,5 +1,5 @@
 /**
- * Ranks the drive's parts for one capture (DESIGN.md "Ranking suspects", issue 11 item 4): for
+ * Ranks the drive's parts for one capture (docs/design.md "Ranking suspects"): for
  * each (part, fault) its candidate lines are matched within their windows (shaft lines in the raw
  * order spectrum, bearing lines in the envelope spectra, belt lines in both), the whole pattern is
  * scored 0–1, and the entries are sorted by score, ties by name.

@@ -1,6 +1,6 @@
 /**
- * Combines the rankings of several captures of one case into one list of suspects (DESIGN.md
- * "Ranking suspects", issue 11 item 4). Terms, each applied on its own:
+ * Combines the rankings of several captures of one case into one list of suspects (docs/design.md
+ * "Ranking suspects"). Terms, each applied on its own:
  * - base: a suspect's best score over the before-repair captures that ran with the belt on;
  * - probe point: a part whose lines are stronger in the capture probed nearest to it than in the
  *   others gains weight (and loses some when they are weaker there);

@@ -2,7 +2,7 @@ import { z } from 'zod';
 
 /**
  * Settings of one analysis run: the single source of defaults for the CLI, the workers and the
- * web app (STYLE.md §3). Parse every settings object through `AnalysisSettingsSchema` so the
+ * web app (DEVELOPERS.md "Signal processing in shared/"). Parse every settings object through `AnalysisSettingsSchema` so the
  * command line and the UI give identical results. Channels are 1-based (channel 1 = the first
  * data column after time, or the first interleaved WAV channel). Orders are multiples of crank
  * speed; angles are crank degrees.

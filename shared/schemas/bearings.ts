@@ -1,6 +1,6 @@
 /**
  * Request and response shapes of the shop's bearing table (GET/POST/PUT/DELETE /api/bearings).
- * Ranges follow the drive document's (issue 10): 5–30 balls, ball 1–40 mm and smaller than the
+ * Ranges follow the drive document's (README, Drive documents): 5–30 balls, ball 1–40 mm and smaller than the
  * pitch diameter, contact angle 0–45°. The client's form and the server's validate() share them.
  */
 import { z } from 'zod';

@@ -1,7 +1,16 @@
 import { z } from 'zod';
 
-/** A positive integer id in a path parameter (`/users/:id`), coerced from the string Express gives. */
-export const IdParamsSchema = z.object({ id: z.coerce.number().int().positive() });
+/**
+ * A record id in a path parameter (`/users/:id`): only a canonical positive integer that fits an INT
+ * column (`0x1`, `1e0`, `+1`, ` 1`, `01` are refused, though Number() reads each as 1).
+ */
+export const IdSchema = z
+  .string()
+  .regex(/^[1-9][0-9]{0,9}$/, { message: 'expected a positive whole number' })
+  .transform(Number)
+  .refine((n) => n <= 2_147_483_647, { message: 'expected a positive whole number' });
+/** `:id` path parameters. */
+export const IdParamsSchema = z.object({ id: IdSchema });
 /** Parsed `:id` params. */
 export type IdParams = z.infer<typeof IdParamsSchema>;
 

@@ -9,7 +9,7 @@ import type { DriveDocument } from '../drive/types';
 import { RefKindSchema } from '../schemas/analysis-settings';
 
 
-/** The six fault kinds of the ranking (DESIGN.md "Ranking suspects"). */
+/** The six fault kinds of the ranking (docs/design.md "Ranking suspects"). */
 export const FaultKindSchema = z.enum(['shaft', 'outer_race', 'inner_race', 'ball', 'cage', 'belt']);
 export type FaultKind = z.infer<typeof FaultKindSchema>;
 

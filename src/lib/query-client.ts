@@ -3,7 +3,7 @@ import { toast } from '../components/ui/toast';
 import { ApiError, isUnauthenticated } from './api-client';
 
 /**
- * Query defaults for the whole client (STYLE.md §7). Errors surface in one place: a query or
+ * Query defaults for the whole client (DEVELOPERS.md "Client: TanStack Query"). Errors surface in one place: a query or
  * mutation that fails shows a toast, and a lost session (401) sends the user to sign-in.
  * Queries that handle their own errors (the "who am I" probe, forms showing field errors)
  * opt out with `meta: { quiet: true }` / `meta: { inlineErrors: true }`.

@@ -13,7 +13,7 @@ export const SCREENSHOTS = path.resolve('tests/e2e/screenshots');
 export async function launchChromium(): Promise<Browser> {
   mkdirSync(SCREENSHOTS, { recursive: true });
   return chromium.launch({
-    executablePath: '/usr/bin/chromium',
+    executablePath: process.env.CHROMIUM_PATH || '/usr/bin/chromium',
     headless: true,
     args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update',
       '--disable-sync', '--no-first-run', '--disable-quic'],

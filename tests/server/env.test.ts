@@ -12,6 +12,7 @@ describe('environment', () => {
       DEMO: true,
       SIGNIN_MAX_FAILURES: 10,
       SIGNIN_WINDOW_MIN: 15,
+      SIGNIN_IP_MAX_FAILURES: 100,
       INVITE_TTL_HOURS: 48,
       RESET_TTL_MIN: 60,
       LOG_LEVEL: 'info',

@@ -1,7 +1,7 @@
 import { NavIcon } from '../nav-icons';
 import { PlaceholderPage } from './placeholder';
 
-/** Cases: one per repair order (DESIGN.md "Domain model"); the list arrives with the Cases work. */
+/** Cases: one per repair order (docs/design.md "Domain model"); the list arrives with the Cases work. */
 export function CasesRoute() {
   return (
     <PlaceholderPage

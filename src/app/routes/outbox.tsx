@@ -4,6 +4,7 @@ import { Outlet, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { Card } from '../../components/ui/card';
 import { PageHeader } from '../../components/ui/page-header';
 import { LoadingState } from '../../components/ui/spinner';
+import { Caution } from '../../components/ui/states';
 import { outboxListQueryOptions } from '../../features/outbox/api/outbox-queries';
 import { MessageList } from '../../features/outbox/components/message-list';
 import { cn } from '../../lib/cn';
@@ -28,6 +29,13 @@ export function OutboxRoute() {
         title="Outbox"
         description="E-mails Crankwise sent while no mail server is configured: invites and password resets. Open one to follow its link."
       />
+      <Caution title="For trying Crankwise out, not for a shop serving real users" className="mb-4">
+        <p>
+          These messages never leave this server: nobody receives them, and every admin of the shop can read all of them here,
+          including other people’s password-reset links. A shop with real users sets <code>MAIL_URL</code> to its mail server
+          (see the README, “Configuration”); then mail is delivered and this page stays empty.
+        </p>
+      </Caution>
       <Card className="grid overflow-hidden md:grid-cols-[20rem_1fr]">
         <div className={cn('border-border md:border-r', id ? 'hidden md:block' : undefined)}>
           <MessageList hrefFor={paths.outboxMessage} />

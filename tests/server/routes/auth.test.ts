@@ -94,6 +94,45 @@ describe('sign-in rate limit', () => {
     }
   });
 
+  it('stops password spraying: failures across many addresses from one IP hit the per-IP limit (issue 19 item 4)', async () => {
+    // Before: only IP + e-mail was counted, so 30 addresses x 9 guesses all reached the password check.
+    const limited = await createTestApp({ SIGNIN_MAX_FAILURES: '9', SIGNIN_IP_MAX_FAILURES: '12' });
+    try {
+      const a = await limited.agent();
+      const statuses: number[] = [];
+      for (let address = 0; address < 5; address++) {
+        for (let guess = 0; guess < 3; guess++) {
+          const res = await a.post('/api/auth/sign-in', { email: `sprayed.${address}.${uniq()}@example.test`, password: `guess-${guess}-xx` });
+          statuses.push(res.status);
+          if (res.status === 429) expect(res.body.error.code).toBe('too_many_attempts');
+        }
+      }
+      // 12 failures reach the password check, then every further attempt is refused.
+      expect(statuses.slice(0, 12).every((s) => s === 401)).toBe(true);
+      expect(statuses.slice(12).every((s) => s === 429)).toBe(true);
+      // While the window lasts this IP cannot sign in any address, not even with its right password.
+      const right = await a.post('/api/auth/sign-in', { email: shop.users.lead.email, password: shop.users.lead.password });
+      expect(right.status).toBe(429);
+      expect(right.body.error.message).toMatch(/this network/);
+    } finally {
+      await limited.close();
+    }
+  });
+
+  it('lets a shop behind one address sign many people in: successes never count toward the per-IP limit', async () => {
+    const limited = await createTestApp({ SIGNIN_IP_MAX_FAILURES: '3' });
+    try {
+      const a = await limited.agent();
+      for (let i = 0; i < 2; i++) expect((await a.post('/api/auth/sign-in', { email: shop.users.tech.email, password: 'wrong-password' })).status).toBe(401);
+      for (const role of ['tech', 'lead', 'specialist', 'admin', 'tech'] as const) {
+        const b = await limited.agent();
+        expect((await b.post('/api/auth/sign-in', { email: shop.users[role].email, password: shop.users[role].password })).status, role).toBe(200);
+      }
+    } finally {
+      await limited.close();
+    }
+  });
+
   it('does not count successful sign-ins', async () => {
     const limited = await createTestApp({ SIGNIN_MAX_FAILURES: '2' });
     try {

@@ -82,7 +82,7 @@ describe('invitations', () => {
     expect(await Invite.count({ where: { email } })).toBe(0);
   });
 
-  it('refuses an address that already has an account with 409 email_in_use', async () => {
+  it('refuses an address that already belongs to someone of this shop with 409 email_in_use', async () => {
     const res = await admin.post('/api/invites', { email: shop.users.tech.email, role: 'tech' });
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe('email_in_use');

@@ -52,10 +52,10 @@ describe('team management', () => {
     expect(fresh).toMatchObject({ role: 'lead', name: target.name, active: true });
   });
 
-  it('answers 400 (never 500) for an id that is not a number', async () => {
+  it('answers 404 (never 500) for an id that is not a number: it names no user', async () => {
     const res = await admin.patch('/api/users/abc', { name: 'X' });
-    expect(res.status).toBe(400);
-    expect(res.body.error.message).toMatch(/id/);
+    expect(res.status).toBe(404);
+    expect(res.body.error.code).toBe('not_found');
   });
 });
 

@@ -1,9 +1,12 @@
-import { createReadStream } from 'node:fs';
+import { createReadStream, readFileSync } from 'node:fs';
+import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { CaptureFormatError } from '../../../shared/formats/capture-format-error';
 import { createCsvParser } from '../../../shared/formats/csv-parser';
 import { parseCaptureStream } from '../../../shared/formats/parse-capture-stream';
 import { type TimeUnit } from '../../../shared/formats/csv-layout';
+
+const fixtures = path.resolve('tests/fixtures/captures');
 
 function read(text: string, timeUnit: TimeUnit | null = null, chunk = 97) {
   const p = createCsvParser({ name: 'test.csv', timeUnit });
@@ -19,14 +22,16 @@ function rows(n: number, dt: number, fmt: (t: number, i: number) => string): str
 }
 
 describe('CSV/TSV reader', () => {
-  it('reads the scope sample: preamble, unit row, ";" separators, decimal comma, time in ms (held-820-scope.csv)', async () => {
-    const cap = await parseCaptureStream(createReadStream('/work/shared/samples/held-820-scope.csv', { highWaterMark: 4096 }), { name: 'held.csv' });
-    expect(cap.sampleRateHz).toBeCloseTo(20000, 6);
+  it('reads a scope export: preamble, unit row, ";" separators, decimal comma, time in ms (tests/fixtures/captures/held-820-scope.csv)', async () => {
+    // A capture from the project's generator written in a bench scope's layout; see make-scope-csv.ts.
+    const truth = JSON.parse(readFileSync(path.join(fixtures, 'held-820-scope.json'), 'utf8'));
+    const cap = await parseCaptureStream(createReadStream(path.join(fixtures, 'held-820-scope.csv'), { highWaterMark: 4096 }), { name: 'held.csv' });
+    expect(cap.sampleRateHz).toBeCloseTo(truth.sampleRateHz, 6);
     expect(cap.channels).toHaveLength(2);
-    expect(cap.channels[0].length).toBe(100_000);
+    expect(cap.channels[0].length).toBe(truth.samples);
     expect(cap.channelNames).toEqual(['Ignition ref', 'Pickup']);
     expect(cap.channelUnits).toEqual(['V', 'V']);
-    expect(cap.channels[1][0]).toBeCloseTo(1.46751, 5);
+    expect(cap.channels[1][0]).toBeCloseTo(truth.firstPickupV, 5);
   });
 
   it('reads comma CSV with a time_ms header', () => {

@@ -1,4 +1,4 @@
-/** Query keys of the Bearings page (STYLE.md §7). */
+/** Query keys of the Bearings page (DEVELOPERS.md "Client: TanStack Query"). */
 export const bearingKeys = {
   all: ['bearings'] as const,
   lists: () => [...bearingKeys.all, 'list'] as const,

@@ -1,6 +1,6 @@
 import type { EngineListQuery } from '../../../../shared/schemas/engines-api';
 
-/** Query keys of the Drive library (STYLE.md §7): all → lists → list(filters) → details → detail(id). */
+/** Query keys of the Drive library (DEVELOPERS.md "Client: TanStack Query"): all → lists → list(filters) → details → detail(id). */
 export const engineKeys = {
   all: ['engines'] as const,
   lists: () => [...engineKeys.all, 'list'] as const,

@@ -38,6 +38,15 @@ describe('Outbox', () => {
     expect(document.querySelector('script')).toBeNull();
   });
 
+  it('says plainly that the Outbox is not for real users and names MAIL_URL (issue 19 item 5)', async () => {
+    server.use(http.get('*/api/outbox', () => HttpResponse.json({ items: [] })));
+    renderApp('/outbox', { user: admin });
+    const note = await screen.findByText(/not for a shop serving real users/);
+    const box = note.closest('[role="note"]')!;
+    expect(box.textContent).toMatch(/including other people’s password-reset links/);
+    expect(box.textContent).toMatch(/MAIL_URL/);
+  });
+
   it('says so when no mail has arrived', async () => {
     server.use(http.get('*/api/outbox', () => HttpResponse.json({ items: [] })));
     renderApp('/outbox', { user: admin });
