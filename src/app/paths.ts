@@ -10,6 +10,7 @@ export const paths = {
   resetPassword: '/reset-password',
   resetPasswordComplete: (token: string) => `/reset-password/${encodeURIComponent(token)}`,
   cases: '/cases',
+  caseRecord: (caseId: number | string) => `/cases/${caseId}/record`,
   driveLibrary: '/drive-library',
   bearings: '/bearings',
   capturePlanner: '/capture-planner',

@@ -13,6 +13,7 @@ import { NotFoundRoute } from './routes/not-found';
 import { OutboxMessageRoute, outboxMessageLoader } from './routes/outbox-message';
 import { OutboxIndexRoute, OutboxRoute, outboxLoader } from './routes/outbox';
 import { PublicLayout } from './routes/public-layout';
+import { RecordRoute } from './routes/record';
 import { ResetPasswordCompleteRoute } from './routes/reset-password-complete';
 import { ResetPasswordRoute } from './routes/reset-password';
 import { RootLayout } from './routes/root';
@@ -59,6 +60,7 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
               children: [
                 { index: true, loader: () => redirect(paths.cases) },
                 { path: paths.cases, element: <CasesRoute /> },
+                { path: '/cases/:caseId/record', element: <RecordRoute />, handle: { fullSafetyNote: true } },
                 { path: paths.driveLibrary, element: <DriveLibraryRoute /> },
                 { path: `${paths.driveLibrary}/:engineId`, element: <EngineRoute />, loader: engineLoader(queryClient) },
                 { path: paths.bearings, element: <BearingsRoute />, loader: bearingsLoader(queryClient) },
