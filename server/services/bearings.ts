@@ -89,7 +89,7 @@ export async function deleteBearing(shopId: number, id: number): Promise<void> {
 }
 
 /**
- * Seeds a shop's table with the published rows of REFERENCES.md §1 (the built-in rows marked
+ * Seeds a shop's table with the published rows of docs/references.md §1 (the built-in rows marked
  * `published`), skipping designations the shop already has. Called when a shop is created
  * (demo shop, set-up page, `npm run create-shop`).
  */

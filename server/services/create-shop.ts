@@ -37,7 +37,7 @@ export async function createShop(
     const taken = await User.findOne({ where: { email: emails }, transaction });
     if (taken) throw new AppError(409, 'email_in_use', `${taken.email} already has a Crankwise account`);
     const shop = await Shop.create({ name: input.name.trim(), isDemo: input.isDemo ?? false }, { transaction });
-    await seedPublishedBearings(shop.id, transaction); // Drive library: REFERENCES.md §1 published rows
+    await seedPublishedBearings(shop.id, transaction); // Drive library: docs/references.md §1 published rows
     const users: User[] = [];
     for (const [i, u] of input.users.entries()) {
       const user = await User.create(

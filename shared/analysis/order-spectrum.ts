@@ -6,7 +6,7 @@ import { type OrderSpectrum } from './types';
 /**
  * Order spectrum of an angle-domain signal (samplesPerRev samples per revolution): blocks of
  * revsPerBlock whole revolutions with 50 % overlap, periodic Hann window, FFT, POWER average
- * (REFERENCES.md §3: a complex average would be a 360° synchronous average and cancel every
+ * (docs/references.md §3: a complex average would be a 360° synchronous average and cancel every
  * non-integer accessory order), square root → single-sided peak amplitude corrected for the
  * coherent gain: A = 2·sqrt(⟨|X|²⟩) / (N·CG), so a tone of amplitude A on a bin reads A.
  * Bin k is at order k / revsPerBlock (resolution = 1 / revsPerBlock); bins up to maxOrder.

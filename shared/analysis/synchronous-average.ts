@@ -1,7 +1,7 @@
 /**
  * Time-synchronous average over whole periods of an angle-domain signal (here the 720° engine
  * cycle): avg[i] = mean over cycles c of x[c·period + i]. Noise power falls by the number of
- * cycles N; a component at x cycles per period passes with |sin(Nπx)/(N sin πx)| (REFERENCES.md
+ * cycles N; a component at x cycles per period passes with |sin(Nπx)/(N sin πx)| (docs/references.md
  * §3, see dsp/comb-gain.ts). Subtracting it leaves the residual in which the engine's own
  * cycle-locked ticks no longer dominate (Randall & Antoni 2011, discrete/random separation).
  */

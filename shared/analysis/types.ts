@@ -57,7 +57,7 @@ export interface CycleEvent {
 export interface CycleResult {
   tdcOffsetDeg: number;
   phaseResolved: boolean;
-  /** Number of whole 720° cycles in the synchronous average (for the comb gain of REFERENCES.md §3). */
+  /** Number of whole 720° cycles in the synchronous average (for the comb gain of docs/references.md §3). */
   cyclesAveraged: number;
   event: CycleEvent | null;
   /** Synchronous average and short-window RMS over 720°, for the engine-cycle view. */
@@ -95,7 +95,7 @@ export interface MatchedLine {
   order: number;
   amplitude: number;
   snrDb: number;
-  /** Comb gain of the 720° average at this order (REFERENCES.md §3); > ~0.3 means not separable. */
+  /** Comb gain of the 720° average at this order (docs/references.md §3); > ~0.3 means not separable. */
   cycleGain: number;
 }
 

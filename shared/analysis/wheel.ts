@@ -2,7 +2,7 @@ import { median } from '../dsp/stats';
 import { type Warning } from './types';
 
 /**
- * Trigger-wheel angles (REFERENCES.md §5 [common practice]): a "N-M" wheel has N tooth positions
+ * Trigger-wheel angles (docs/references.md §5 [common practice]): a "N-M" wheel has N tooth positions
  * on a 360/N° pitch with M teeth missing, so the gap interval spans M + 1 pitches (60-2: 18° =
  * 3 pitches). An interval of M + 1 running-median tooth intervals (within half a pitch) is
  * gap-like; a run of M missed teeth looks the same, so a gap-like interval is the gap only when

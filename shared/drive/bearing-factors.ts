@@ -4,7 +4,7 @@
  * r = (d / D)·cos α; FTF = ½(1 − r) with the inner ring turning, ½(1 + r) with the outer ring
  * turning; BPFO = (n/2)(1 − r); BPFI = (n/2)(1 + r); BSF = (D / 2d)(1 − r²) (ball spin; a ball
  * defect strikes at 2×BSF). Source: R. B. Randall & J. Antoni, "Rolling element bearing
- * diagnostics — A tutorial", MSSP 25(2):485–520, 2011 (REFERENCES.md §1).
+ * diagnostics — A tutorial", MSSP 25(2):485–520, 2011 (docs/references.md §1).
  */
 import type { BearingFactors, BearingSpec, RotatingRing } from './types';
 import { findBearing, type BearingTable } from './bearing-table';

@@ -1,6 +1,6 @@
 /**
  * Built-in bearing geometry by designation. Published rows come from the Case Western Reserve
- * University Bearing Data Center's "Bearing Information" table (REFERENCES.md §1), converted from
+ * University Bearing Data Center's "Bearing Information" table (docs/references.md §1), converted from
  * inches at exactly 25.4 mm/in. Rows marked `estimated` are typical deep-groove geometry for the
  * series, not read from a catalogue: they give approximate defect orders and say so.
  */

@@ -97,7 +97,7 @@ function componentSeeds(ratio: number, f: BearingFactors, ring: RotatingRing, ha
     for (let k = 1; k <= harmonics; k += 1) {
       seeds.push({ label: `${d.name} ${k}x`, fault: d.fault, harmonic: k, sideband: 0, nominalOrder: k * ratio * d.factor, role: d.role, spectrum: 'envelope' });
     }
-    // Sidebands (REFERENCES.md §1): the turning race's defect is modulated at the shaft (ring) speed;
+    // Sidebands (docs/references.md §1): the turning race's defect is modulated at the shaft (ring) speed;
     // a ball defect at the cage speed. A fixed race's defect carries none.
     let modulator: { order: number; name: string } | undefined;
     if (d.role === 'turning' && d.fault !== 'cage') modulator = { order: ratio, name: '1x shaft' };

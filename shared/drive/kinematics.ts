@@ -1,7 +1,7 @@
 /**
  * Pulley kinematics of an accessory drive: speed ratios along belt chains, belt speed and
  * belt-pass order. Ratios are nominal (no creep): driven speed = driver speed × D_driver / D_driven
- * (REFERENCES.md §5; effective, pitch-line diameters). A backside pulley turns the other way; its
+ * (docs/references.md §5; effective, pitch-line diameters). A backside pulley turns the other way; its
  * ratio magnitude is the same, so ratios here are magnitudes. An order is a multiple of crank speed.
  */
 import type { BeltSpec, ComponentSpec, DriveDocument } from './types';
@@ -91,7 +91,7 @@ function beltOrThrow(drive: DriveDocument, beltName: string): BeltSpec {
 /**
  * Belt speed in m/s at a crank speed: v = π·D·f of the belt's driving groove, where f is the
  * driver's speed (crank speed × the driver's ratio) and D its groove's effective diameter
- * (REFERENCES.md §5: D 160 mm at 750 rpm → 6.2832 m/s).
+ * (docs/references.md §5: D 160 mm at 750 rpm → 6.2832 m/s).
  */
 export function beltSpeedMs(drive: DriveDocument, beltName: string, crankRpm: number): number {
   if (!(Number.isFinite(crankRpm) && crankRpm >= 0)) throw new RangeError(`crank speed must be a non-negative rpm, got ${crankRpm}`);
@@ -102,7 +102,7 @@ export function beltSpeedMs(drive: DriveDocument, beltName: string, crankRpm: nu
 
 /**
  * Belt-pass order: how many times a point on the belt passes per crank revolution,
- * π·D_driver·ratio(driver) / L (REFERENCES.md §5: D 160 mm, L 1900 mm → 0.26456).
+ * π·D_driver·ratio(driver) / L (docs/references.md §5: D 160 mm, L 1900 mm → 0.26456).
  */
 export function beltPassOrder(drive: DriveDocument, beltName: string): number {
   const belt = beltOrThrow(drive, beltName);

@@ -1,9 +1,9 @@
 /**
  * Match windows for candidate lines, in crank orders. Belt creep makes a driven part turn slower
- * than nominal (shaft lines −3 % … +0.5 %, REFERENCES.md §5 [practice]); rolling elements slip as
+ * than nominal (shaft lines −3 % … +0.5 %, docs/references.md §5 [practice]); rolling elements slip as
  * well, and since the cage lags, slip lowers the fixed-race, cage and ball lines but raises the
  * turning race's line (about +1.3 % inner race, about +3 % for an idler's outer race;
- * REFERENCES.md §4, derived from §1, magnitudes from memory). Fixed-ratio parts have no creep;
+ * docs/references.md §4, derived from §1, magnitudes from memory). Fixed-ratio parts have no creep;
  * overrunning (one-way, decoupler) pulleys and fan clutches are not locked to the belt.
  * When a part's own slip is known from its shaft line, its bearing windows are centred on the
  * slipped speed and keep only the rolling-slip allowance.
@@ -27,7 +27,7 @@ const SHAFT: Record<DriveRegime, RelativeWindow> = {
 /**
  * Rolling-slip allowance alone (no creep): what is left once the part's speed is known. The cage
  * lag raises the turning race's line (inner ring about +1.3 %, an idler's outer ring about +3 %)
- * and lowers the fixed race's, the cage's and the ball's (REFERENCES.md §4); half a percent of
+ * and lowers the fixed race's, the cage's and the ball's (docs/references.md §4); half a percent of
  * margin on the other side.
  */
 const ROLLING: Record<'turning' | 'turningOuter' | 'fixed', RelativeWindow> = {
@@ -39,9 +39,9 @@ const ROLLING: Record<'turning' | 'turningOuter' | 'fixed', RelativeWindow> = {
 /** Belt-pass lines: the belt runs at its driving groove's surface speed, less a little creep. */
 const BELT_PASS: RelativeWindow = { below: -0.02, above: 0.005 };
 
-/** Creep of friction belts, per stage: 0.5–1 % normal (ISO 5292 via REFERENCES.md §5), up to 3 % worn [practice]. */
+/** Creep of friction belts, per stage: 0.5–1 % normal (ISO 5292 via docs/references.md §5), up to 3 % worn [practice]. */
 const CREEP_RANGE: [number, number] = [0, 0.03];
-/** Cage lag of rolling elements: about 1–2 % (REFERENCES.md §4, from memory), near 0 when lightly loaded. */
+/** Cage lag of rolling elements: about 1–2 % (docs/references.md §4, from memory), near 0 when lightly loaded. */
 const CAGE_LAG_RANGE: [number, number] = [0, 0.02];
 
 /**
@@ -73,7 +73,7 @@ export function relativeWindow(role: LineRole, regime: DriveRegime, outerRingTur
  * fixed ratios, up to 10 % for loose parts, or the known slip), and for bearing lines the cage lag
  * of 0–2 %, which lowers the fixed race, cage and ball lines by the lag and raises the turning
  * race by the lag × `turningShare` (the other race's factor over this one's: BPFO/BPFI for an inner
- * ring, BPFI/BPFO for an outer ring; REFERENCES.md §1, §4). Default share 0.6 (inner), 1.6 (outer).
+ * ring, BPFI/BPFO for an outer ring; docs/references.md §1, §4). Default share 0.6 (inner), 1.6 (outer).
  */
 export function likelyDeviation(role: LineRole, regime: DriveRegime, outerRingTurns = false, knownSlip?: number, beltStages = 1, turningShare?: number): [number, number] {
   // The window allows creep on every belt stage, but a large total is unusual: the likely core

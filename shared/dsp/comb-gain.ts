@@ -1,6 +1,6 @@
 /**
  * Gain of a time-synchronous average over N periods for a component at x cycles per averaging
- * period: |sin(Nπx) / (N·sin(πx))| (REFERENCES.md §3; P. D. McFadden, "A revised model for the
+ * period: |sin(Nπx) / (N·sin(πx))| (docs/references.md §3; P. D. McFadden, "A revised model for the
  * extraction of periodic waveforms by time domain averaging", MSSP 1(1), 1987, from memory).
  * Over the 720° engine cycle a crank order o has x = 2·o, taken as its distance to the nearest
  * integer: every 0.5-order multiple passes in full, other orders are only attenuated.

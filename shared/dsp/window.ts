@@ -7,7 +7,7 @@
 
 export type WindowKind = 'rectangular' | 'hann' | 'flattop';
 
-/** Flat-top coefficients (REFERENCES.md §2: 0.21557895, 0.41663158, 0.277263158, 0.083578947, 0.006947368). */
+/** Flat-top coefficients (docs/references.md §2: 0.21557895, 0.41663158, 0.277263158, 0.083578947, 0.006947368). */
 const FLATTOP = [0.21557895, 0.41663158, 0.277263158, 0.083578947, 0.006947368];
 
 /** A periodic window of length n. */

@@ -1,5 +1,5 @@
 /**
- * Pulley slip of one part from its own shaft lines in the raw order spectrum (REFERENCES.md §4:
+ * Pulley slip of one part from its own shaft lines in the raw order spectrum (docs/references.md §4:
  * bearing lines cannot separate belt creep from rolling-element slip, so only the 1× and 2×
  * shaft lines are used). A shaft line on the engine's 0.5-order comb says nothing about the part.
  */

@@ -45,7 +45,7 @@ function searchFor(cc: ComponentCandidates, fault: Fault, cyclesAveraged: number
   const sidebands = lines.filter((l) => l.sideband !== 0);
   const role = carriers[0]?.role ?? 'shaft';
   const outer = cc.rotatingRing === 'outer';
-  // The turning race rises by the cage lag times the other race's share (REFERENCES.md §1, §4).
+  // The turning race rises by the cage lag times the other race's share (docs/references.md §1, §4).
   const f = cc.factors;
   const share = f && role === 'turning' ? (fault === 'inner_race' ? f.bpfo / f.bpfi : f.bpfi / f.bpfo) : undefined;
   // A calibrated part's nominal already holds its usual creep: the likely deviation is about 0.

@@ -78,7 +78,7 @@ export function onEngineComb(order: number, resolution: number): boolean {
 }
 
 /**
- * Comb gain of the 720° synchronous average for a line at `order` (REFERENCES.md §3, via
+ * Comb gain of the 720° synchronous average for a line at `order` (docs/references.md §3, via
  * shared/dsp/comb-gain.ts); 1 when no whole cycle was averaged. Above about 0.3 the average
  * cannot separate the line from the engine's own cycle.
  */

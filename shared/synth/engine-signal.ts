@@ -1,6 +1,6 @@
 /**
  * The engine's own contribution to a generated pickup signal: crank-angle-locked vibration at
- * every 0.5-order multiple (firing orders = multiples of cylinders/2 strongest; REFERENCES.md §5,
+ * every 0.5-order multiple (firing orders = multiples of cylinders/2 strongest; docs/references.md §5,
  * common practice) and injector-like ticks at fixed angles of the 720° cycle (short bursts ringing
  * at 2–3 kHz, one cylinder's loudest).
  */

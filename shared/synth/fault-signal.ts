@@ -1,16 +1,16 @@
 /**
  * The planted fault of a generated capture (one per capture), locked to crank angle through the
  * part's speed: part order = nominal ratio × (1 − creep), creep being the total between crank and
- * part (fixed-ratio parts: no creep; REFERENCES.md §5). A belt runs at its driving groove's speed,
+ * part (fixed-ratio parts: no creep; docs/references.md §5). A belt runs at its driving groove's speed,
  * so a belt driven by a belt-driven part carries that part's creep.
  *
  * - shaft: 1× and 2× sinusoids at the part's speed (unbalance, misalignment);
  * - bearing faults: impacts ringing the structural resonance at the defect rate, with spacing
- *   jitter and the modulation of which ring turns (REFERENCES.md §1): outer race with the inner
+ *   jitter and the modulation of which ring turns (docs/references.md §1): outer race with the inner
  *   ring turning unmodulated, with the outer ring turning modulated at the pulley's 1×; inner race
  *   (inner ring turning) modulated at 1× shaft (load zone); ball at 2×BSF modulated at the cage
  *   speed; cage impacts at FTF;
- * - rolling slip as a cage lag s (REFERENCES.md §4): the cage turns at FTF·(1 − s) of the turning
+ * - rolling slip as a cage lag s (docs/references.md §4): the cage turns at FTF·(1 − s) of the turning
  *   ring, so the fixed race's line n·FTF·(1 − s) falls, the turning race's line n·(1 − FTF·(1 − s))
  *   rises (n = BPFO + BPFI), ball spin falls by s;
  * - belt: a once-per-belt-revolution defect: a tension ripple (belt-pass order and its 2×, 3×)

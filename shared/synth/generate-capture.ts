@@ -148,7 +148,7 @@ export function generateCapture(input: GenerateOptionsInput): GeneratedCapture {
 /**
  * Degrees over which the reference repeats without telling cycles apart: 720 with a cam channel
  * or a cylinder-1 reference; 360 for a wheel or one pulse per revolution; 720/N for N pulses per
- * cycle (REFERENCES.md §5, common practice).
+ * cycle (docs/references.md §5, common practice).
  */
 export function ambiguityPeriodDeg(o: Pick<GenerateOptions, 'camChannel' | 'refKind' | 'refPerCycle'>, cylinders: number): number {
   if (o.camChannel) return 720;

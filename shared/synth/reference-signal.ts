@@ -4,7 +4,7 @@
  * Ignition-like pulses (cyl1, per-rev, per-cylinder, generic N per cycle): a raised-cosine rise
  * whose half-amplitude point is exactly the edge, then a decaying ring (an ignition lead seen by an
  * inductive clamp rings at a few kHz; common practice). Wasted spark: one pulse per revolution,
- * the exhaust-stroke spark weaker and optionally of the other polarity (REFERENCES.md §5).
+ * the exhaust-stroke spark weaker and optionally of the other polarity (docs/references.md §5).
  * Trigger wheel: a variable-reluctance sensor gives one sine period per tooth pitch, rising
  * through zero at each tooth's edge, amplitude growing with speed and nothing across the gap; a
  * Hall sensor gives a square wave high for the first half of each pitch. The reference edge is at

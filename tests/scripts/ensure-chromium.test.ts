@@ -8,7 +8,7 @@ import { ensureChromium } from '../../scripts/ensure-chromium';
 
 const nowhere = path.resolve('tests/fixtures/no-such-dir/chromium');
 
-describe('ensure-chromium (pretest)', () => {
+describe('ensure-chromium (pretest)', { timeout: 90_000 }, () => {
   it('returns CHROMIUM_PATH when it names an executable', () => {
     expect(ensureChromium({ CHROMIUM_PATH: process.execPath }, false, () => {})).toBe(process.execPath);
   });
@@ -29,7 +29,7 @@ describe('ensure-chromium (pretest)', () => {
 
   it('npm test stops before running any test, with one line naming the command', () => {
     const run = spawnSync('npm', ['test', '--silent'], {
-      encoding: 'utf8', timeout: 60_000,
+      encoding: 'utf8', timeout: 80_000,
       env: { ...process.env, CHROMIUM_PATH: nowhere, CHROMIUM_INSTALL_COMMAND: 'true' },
     });
     expect(run.status).not.toBe(0);

@@ -9,12 +9,13 @@ const vitest = path.resolve('node_modules/vitest/vitest.mjs');
 
 function runFixture(filter: string): { lines: string[]; status: number | null } {
   const run = spawnSync(process.execPath, [vitest, 'run', '--config', config, filter], {
-    encoding: 'utf8', timeout: 60_000, env: { ...process.env, VITEST: undefined, NODE_ENV: 'test' },
+    encoding: 'utf8', timeout: 80_000, env: { ...process.env, VITEST: undefined, NODE_ENV: 'test' },
   });
   return { lines: run.stdout.trim().split('\n'), status: run.status };
 }
 
-describe('summary reporter', () => {
+// Each test starts a child vitest or npm: allow for a loaded machine.
+describe('summary reporter', { timeout: 90_000 }, () => {
   it('counts a file whose beforeAll throws as one failed file and exits non-zero', () => {
     const { lines, status } = runFixture('before-all-throws');
     expect(lines.at(-2)).toBe('Failed: 0 tests, 1 files, 0 errors');

@@ -1,8 +1,8 @@
 /**
  * The demo shop's three engines as drive documents — invented demo values, not any maker's data.
  * Diameters are effective (pitch-line) diameters chosen to give plausible ratios
- * (REFERENCES.md §5, common practice): alternators 2–3.5, pumps about 1–1.3, A/C compressors
- * 1.1–1.5. Bearings are by designation (the published rows of REFERENCES.md §1 that every shop's
+ * (docs/references.md §5, common practice): alternators 2–3.5, pumps about 1–1.3, A/C compressors
+ * 1.1–1.5. Bearings are by designation (the published rows of docs/references.md §1 that every shop's
  * table is seeded with) or by invented geometry; idlers and tensioners turn the outer ring.
  * Pure data: the seeding itself lives in drive-library.ts, so tests can import these documents.
  */

@@ -1,7 +1,7 @@
 import { Caution } from '../../components/ui/states';
 
 /**
- * The workshop cautions (REFERENCES.md §6, trade practice): shown compact under every page and
+ * The workshop cautions (docs/references.md §6, trade practice): shown compact under every page and
  * in full where captures are planned.
  */
 export function SafetyNote({ compact = false }: { compact?: boolean }) {

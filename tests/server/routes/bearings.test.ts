@@ -41,7 +41,7 @@ describe('bearings API', () => {
     const r6205 = res.body.items.find((b: { designation: string }) => b.designation === '6205');
     expect(r6205).toMatchObject({ balls: 9, source: 'published', contactDeg: 0 });
     // CWRU Bearing Data Center, drive end 6205-2RS: BPFI 5.4152, BPFO 3.5848, FTF 0.39828, 2×BSF 4.7135
-    // (REFERENCES.md §1, published; relative tolerance 1e-4 on this row).
+    // (docs/references.md §1, published; relative tolerance 1e-4 on this row).
     const rel = (v: number, ref: number) => Math.abs(v / ref - 1);
     expect(rel(r6205.factors.bpfi, 5.4152)).toBeLessThan(1e-4);
     expect(rel(r6205.factors.bpfo, 3.5848)).toBeLessThan(1e-4);

@@ -56,7 +56,7 @@ describe('engines API', () => {
     expect(document).toStrictEqual(doc);
     const alt = computed.components.find((c: { component: string }) => c.component === 'Alternator');
     expect(alt.ratio).toBeCloseTo(162 / 60, 12);
-    // 6203 on the alternator: BPFO factor 3.0530 per turn, CWRU published (REFERENCES.md §1).
+    // 6203 on the alternator: BPFO factor 3.0530 per turn, CWRU published (docs/references.md §1).
     expect(alt.orders.bpfo / (alt.ratio * 3.053)).toBeCloseTo(1, 3);
     expect(computed.belts.find((b: { belt: string }) => b.belt === 'Front').speedMs).toBeCloseTo(Math.PI * 0.162 * (680 / 60), 9);
     expect(computed.candidates.length).toBe(doc.components.length - 1 + doc.belts.length);
@@ -183,7 +183,7 @@ describe('engines API', () => {
     const doc = parseDriveDocument(JSON.parse(res.text));
     expect(doc.components.some((c) => c.bearing?.designation)).toBe(false);
     const idler = doc.components.find((c) => c.name === 'Upper idler')!;
-    // CWRU 6203: 8 balls, d 0.2656 in, D 1.122 in (REFERENCES.md §1), in millimetres.
+    // CWRU 6203: 8 balls, d 0.2656 in, D 1.122 in (docs/references.md §1), in millimetres.
     expect(idler.bearing).toMatchObject({ balls: 8, rotatingRing: 'outer' });
     expect(idler.bearing!.ballMm).toBeCloseTo(0.2656 * 25.4, 9);
     expect(idler.bearing!.pitchMm).toBeCloseTo(1.122 * 25.4, 9);

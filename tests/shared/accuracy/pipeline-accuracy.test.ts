@@ -10,7 +10,7 @@ import { drives } from '../../helpers/scenarios';
 // within max(1.5 × resolution, 0.6 % of the order); the loudest injector tick in the right cylinder
 // slot, or among the candidates when the reference leaves the phase open; a wheel's gaps counted as
 // gaps and never as repaired teeth. The four-stroke facts behind the slots and ambiguities are
-// common practice (REFERENCES.md §5; Heywood 1988, from memory). 4 s captures at 24 kHz keep this
+// common practice (docs/references.md §5; Heywood 1988, from memory). 4 s captures at 24 kHz keep this
 // file short; `npm run accuracy` runs the same cases over more seeds (shared/synth/sweep.ts).
 
 function expectAllPass(drive: DriveDocument, c: AccuracyCase, seeds: number[]): void {

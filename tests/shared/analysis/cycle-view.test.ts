@@ -3,7 +3,7 @@ import { describeEvent } from '../../../shared/analysis/cycle-view';
 import { commonFiringOrder } from '../../../shared/analysis/firing-order';
 
 // Slot i = [i·720/c, (i+1)·720/c) belongs to firingOrder[i]; a crank-only reference is
-// 360°-ambiguous, an all-cylinder one (720/c)-ambiguous (REFERENCES.md §5 [common practice]).
+// 360°-ambiguous, an all-cylinder one (720/c)-ambiguous (docs/references.md §5 [common practice]).
 describe('engine-cycle slots and candidates', () => {
   const fo = [1, 3, 4, 2];
 

@@ -5,7 +5,7 @@ import { chooseEnvelopeBands } from '../../../shared/analysis/envelope-choice';
 import { gaussian, rng } from '../../helpers/signals';
 
 // A bearing fault's impacts ring a structural resonance and show in the envelope spectrum of a band
-// around it (Randall & Antoni 2011, REFERENCES.md §4); spectral kurtosis finds impulsive bands
+// around it (Randall & Antoni 2011, docs/references.md §4); spectral kurtosis finds impulsive bands
 // (Antoni 2006/2007). Here a second, louder impulsive source (a tick train at its own order, ringing
 // its own resonance) must not take every kept band.
 const spr = 2048;

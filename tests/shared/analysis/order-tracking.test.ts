@@ -5,7 +5,7 @@ import { resampleAtAngles } from '../../../shared/analysis/angle-resample';
 import { orderSpectrum } from '../../../shared/analysis/order-spectrum';
 import { orderPeaks } from '../../../shared/analysis/order-peaks';
 
-// REFERENCES.md §3 (Fyfe & Munck, MSSP 11(2), 1997; arithmetic [derived]).
+// docs/references.md §3 (Fyfe & Munck, MSSP 11(2), 1997; arithmetic [derived]).
 describe('computed order tracking (REFERENCES.md §3)', () => {
   const fs = 10_000;
   const durationS = 6;

@@ -19,7 +19,7 @@ function speedOf(ref: Float32Array, settings: AnalysisSettingsInput) {
 // Four-stroke rules [common practice; J. B. Heywood, Internal Combustion Engine Fundamentals, 1988,
 // from memory]: 720° per cycle; a cylinder-1 coil fires once per 720°, a wasted-spark coil once per
 // revolution (the exhaust-stroke spark weaker, maybe of the other polarity), a distributor lead
-// cylinders/2 per revolution; trigger wheels 60-2 and 36-1 (REFERENCES.md §5).
+// cylinders/2 per revolution; trigger wheels 60-2 and 36-1 (docs/references.md §5).
 describe('reference edges and crank speed, ±5 % speed wander', () => {
   const theta = crankProfile(n, fs, 840, 5, 1.7, 30);
   const truth = meanRpmOf(theta, fs);

@@ -5,7 +5,7 @@ import { resolveSettings } from '../../../shared/analysis/resolve-settings';
 import { crankAngle, crankSpeed } from '../../../shared/analysis/crank-speed';
 import { wheelSignal } from '../../helpers/signals';
 
-// Trigger wheels [common practice, REFERENCES.md §5]: an "N-M" wheel has N tooth positions on a
+// Trigger wheels [common practice, docs/references.md §5]: an "N-M" wheel has N tooth positions on a
 // 360/N° pitch with M teeth missing; the gap spans M + 1 pitches and marks the same angle on every
 // revolution.
 

@@ -8,7 +8,7 @@ const shopTable = BUILT_IN_BEARINGS.filter((b) => b.source === 'published');
 describe('computeEngine (the columns beside each row of the drive table)', () => {
   it('gives a 6203 idler the CWRU published defect factors times its ratio', () => {
     // CWRU Bearing Data Center, fan-end 6203: BPFO 3.0530, BPFI 4.9469, rolling element (2×BSF) 3.9874 per
-    // turn of the ring (REFERENCES.md §1, published; table rounds in the 4th decimal → relative 1e-3).
+    // turn of the ring (docs/references.md §1, published; table rounds in the 4th decimal → relative 1e-3).
     const c = computeEngine(DEMO_I4, shopTable).components.find((x) => x.component === 'Upper idler')!;
     const ratio = 148 / 70;
     expect(c.ratio).toBeCloseTo(ratio, 12);
@@ -26,7 +26,7 @@ describe('computeEngine (the columns beside each row of the drive table)', () =>
 
   it('computes belt speed at idle for each belt, and none for a fixed-ratio part', () => {
     const v6 = computeEngine(DEMO_V6, shopTable);
-    // v = π·D·n: 0.150 m × π × 680/60 rev/s on the A/C belt [REFERENCES.md §5, derived].
+    // v = π·D·n: 0.150 m × π × 680/60 rev/s on the A/C belt [docs/references.md §5, derived].
     expect(v6.belts.find((b) => b.belt === 'A/C belt')!.speedMs).toBeCloseTo(Math.PI * 0.15 * (680 / 60), 9);
     const diesel = computeEngine(DEMO_DIESEL_I4, shopTable);
     const vac = diesel.components.find((c) => c.component === 'Vacuum pump')!;

@@ -32,7 +32,7 @@ describe('pulley speed ratio and belt speed against outside sources', () => {
     expect(speedRatio(twoPulley(162, 58, 1500), 'Driven')).toBeCloseTo(2.793, 3);
   });
 
-  // Plausible ratios for the invented demo engines (REFERENCES.md §5, common practice).
+  // Plausible ratios for the invented demo engines (docs/references.md §5, common practice).
   const RANGES: Record<string, [number, number]> = {
     alternator: [2, 3.5], water_pump: [0.95, 1.3], power_steering: [0.95, 1.3], ac_compressor: [1.1, 1.5],
   };

@@ -7,7 +7,7 @@ const rel = (actual: number, expected: number) => Math.abs(actual - expected) / 
 describe('bearing defect factors from geometry', () => {
   // Source: Case Western Reserve University Bearing Data Center, "Bearing Information" (defect
   // frequencies as multiples of running speed), drive-end 6205-2RS: 9 balls, d 0.3126 in, D 1.537 in
-  // (REFERENCES.md §1, published). Tolerance relative 1e-4 as REFERENCES.md states.
+  // (docs/references.md §1, published). Tolerance relative 1e-4 as docs/references.md states.
   it('matches the CWRU drive-end 6205 row within 1e-4', () => {
     const f = factorsFromGeometry({ balls: 9, ballMm: 0.3126, pitchMm: 1.537 });
     expect(rel(f.bpfi, 5.4152)).toBeLessThan(1e-4);
@@ -17,7 +17,7 @@ describe('bearing defect factors from geometry', () => {
   });
 
   // Source: CWRU fan-end 6203-2RS row (8 balls, d 0.2656 in, D 1.122 in); the table rounds in the
-  // 4th decimal, hence 1e-3 (REFERENCES.md §1).
+  // 4th decimal, hence 1e-3 (docs/references.md §1).
   it('matches the CWRU fan-end 6203 row within 1e-3', () => {
     const f = factorsFromGeometry({ balls: 8, ballMm: 0.2656, pitchMm: 1.122 });
     expect(rel(f.bpfi, 4.9469)).toBeLessThan(1e-3);
@@ -26,7 +26,7 @@ describe('bearing defect factors from geometry', () => {
     expect(rel(2 * f.bsf, 3.9874)).toBeLessThan(1e-3);
   });
 
-  // Pitfall noted in REFERENCES.md §1: the 6203 has 8 balls; 9 gives BPFO 3.4348, not the table's 3.0530.
+  // Pitfall noted in docs/references.md §1: the 6203 has 8 balls; 9 gives BPFO 3.4348, not the table's 3.0530.
   it('gives a different BPFO with the common n = 9 mistake for the 6203', () => {
     const wrong = factorsFromGeometry({ balls: 9, ballMm: 0.2656, pitchMm: 1.122 });
     expect(wrong.bpfo).toBeCloseTo(3.4348, 3);
@@ -34,7 +34,7 @@ describe('bearing defect factors from geometry', () => {
   });
 
   // Source: MFPT Society fault data sets, test bearing d 0.235, D 1.245, n 8, α 0 at 25 Hz shaft
-  // (REFERENCES.md §1: values derived from the formula; the data set's description gives 81.12 and 118.875 Hz, published).
+  // (docs/references.md §1: values derived from the formula; the data set's description gives 81.12 and 118.875 Hz, published).
   it('gives the MFPT test bearing frequencies at 25 Hz', () => {
     const f = factorsFromGeometry({ balls: 8, ballMm: 0.235, pitchMm: 1.245 });
     expect(25 * f.bpfo).toBeCloseTo(81.1245, 3);
@@ -45,7 +45,7 @@ describe('bearing defect factors from geometry', () => {
     expect(Math.abs(25 * f.bpfi - 118.875)).toBeLessThan(0.001);
   });
 
-  // Source: Curtin University bearing set (G. Forbes, 2012, CC BY 4.0), readme values (REFERENCES.md §1, published).
+  // Source: Curtin University bearing set (G. Forbes, 2012, CC BY 4.0), readme values (docs/references.md §1, published).
   it('gives the Curtin University set factors', () => {
     const f = factorsFromGeometry({ balls: 9, ballMm: 7.9375, pitchMm: 38.5 });
     expect(Math.abs(f.ftf - 0.3969)).toBeLessThan(5e-5);
@@ -54,7 +54,7 @@ describe('bearing defect factors from geometry', () => {
     expect(Math.abs(f.bsf - 2.32)).toBeLessThan(5e-3);
   });
 
-  // Source: REFERENCES.md §1 non-zero contact angle case [derived from Randall & Antoni 2011's formulas].
+  // Source: docs/references.md §1 non-zero contact angle case [derived from Randall & Antoni 2011's formulas].
   it('applies the contact angle (n 8, d 20, D 120, α 15°)', () => {
     const f = factorsFromGeometry({ balls: 8, ballMm: 20, pitchMm: 120, contactDeg: 15 });
     expect(f.ftf).toBeCloseTo(0.41951, 5);
@@ -70,7 +70,7 @@ describe('bearing defect factors from geometry', () => {
     expect(f.bpfo).toBeCloseTo(11 * f.ftf, 10);
   });
 
-  // REFERENCES.md §1: with the outer ring turning the cage factor becomes ½(1 + r); BPFO, BPFI, BSF keep their values.
+  // docs/references.md §1: with the outer ring turning the cage factor becomes ½(1 + r); BPFO, BPFI, BSF keep their values.
   it('uses the cage factor ½(1 + r) when the outer ring turns', () => {
     const g = { balls: 8, ballMm: 6.74624, pitchMm: 28.49880 };
     const inner = factorsFromGeometry(g, 'inner');

@@ -31,7 +31,7 @@ describe('candidate lines of a drive', () => {
     expect(line(byName(all, 'Main'), 'belt pass 1x').nominalOrder).toBeCloseTo((Math.PI * 140) / 1450, 12);
   });
 
-  // Windows (DESIGN.md "Ranking suspects"; REFERENCES.md §4–§5): shaft −3 % … +0.5 % [practice];
+  // Windows (DESIGN.md "Ranking suspects"; docs/references.md §4–§5): shaft −3 % … +0.5 % [practice];
   // turning race up to about +2.5 % (+3.5 % for an idler's outer race); fixed race and cage lower edge wider.
   it('gives shaft, turning-race and fixed-race windows their slip allowances', () => {
     const alt = byName(all, 'Alternator');
@@ -59,7 +59,7 @@ describe('candidate lines of a drive', () => {
     expect(idler.lines.some((l) => l.label.startsWith('BPFI') && l.sideband !== 0)).toBe(false);
   });
 
-  // Smith & Randall, MSSP 64–65, 2015 (REFERENCES.md §1): a defect order within slip of an integer
+  // Smith & Randall, MSSP 64–65, 2015 (docs/references.md §1): a defect order within slip of an integer
   // multiple of its own shaft order is ambiguous; the 6203's BPFO 3.053 sits next to 3×.
   it('flags a defect line near its own shaft harmonic, as for the 6203', () => {
     const idler = byName(all, 'Upper idler');

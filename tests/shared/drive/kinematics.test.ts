@@ -18,7 +18,7 @@ const twoBelts: DriveDocument = {
 };
 
 describe('speed ratios along belt chains', () => {
-  // Ratio = driver effective diameter / driven effective diameter (REFERENCES.md §5, [published, secondary]).
+  // Ratio = driver effective diameter / driven effective diameter (docs/references.md §5, [published, secondary]).
   it('divides driver by driven diameter on the crank belt', () => {
     expect(speedRatio(twoBelts, 'Water pump')).toBeCloseTo(160 / 128, 12);
     expect(speedRatio(twoBelts, 'crankshaft')).toBe(1);
@@ -40,7 +40,7 @@ describe('speed ratios along belt chains', () => {
     expect(turnsBackwards(twoBelts, 'Water pump')).toBe(false);
   });
 
-  // REFERENCES.md §5 [derived]: 1 mm per side on a 56 mm pulley moves the ratio by about 2 % (160/56 = 2.857 vs 162/58 = 2.793).
+  // docs/references.md §5 [derived]: 1 mm per side on a 56 mm pulley moves the ratio by about 2 % (160/56 = 2.857 vs 162/58 = 2.793).
   it('shows why effective diameters matter', () => {
     const doc = (driver: number, driven: number): DriveDocument => ({ ...twoBelts, belts: [{ ...twoBelts.belts[0], driverPulleyMm: driver }], components: [twoBelts.components[0], { name: 'Alt', kind: 'alternator', belt: 'Main', pulleyMm: driven }] });
     const a = speedRatio(doc(160, 56), 'Alt');
@@ -57,7 +57,7 @@ describe('speed ratios along belt chains', () => {
 });
 
 describe('belt speed and belt-pass order', () => {
-  // REFERENCES.md §5 [derived]: D 160 mm, 750 rpm, L 1900 mm → v 6.2832 m/s, 3.3069 Hz, order 0.26456.
+  // docs/references.md §5 [derived]: D 160 mm, 750 rpm, L 1900 mm → v 6.2832 m/s, 3.3069 Hz, order 0.26456.
   it('reproduces the worked example', () => {
     const v = beltSpeedMs(twoBelts, 'Main', 750);
     expect(v).toBeCloseTo(6.2832, 4);

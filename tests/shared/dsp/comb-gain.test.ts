@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { combGain, cycleCombGain } from '../../../shared/dsp/comb-gain';
 
-// REFERENCES.md §3 [derived]: gain |sin(Nπx)/(N sin πx)|; over the 720° cycle x = 2·order taken
+// docs/references.md §3 [derived]: gain |sin(Nπx)/(N sin πx)|; over the 720° cycle x = 2·order taken
 // to the nearest integer. A 1:1 pump with 0.5 % creep (order 0.995, x = 0.01) keeps 0.96 at N = 16
 // and 0.48 at N = 62; every 0.5-order multiple passes in full.
 describe('synchronous-average comb gain (REFERENCES.md §3)', () => {

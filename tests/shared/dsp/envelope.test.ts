@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { envelope } from '../../../shared/dsp/analytic';
 import { FftPlanCache } from '../../../shared/dsp/fft';
 
-// REFERENCES.md §4 [derived with scipy.signal.hilbert]: x = (1 + m cos 2πf_m t)·cos 2πf_c t,
+// docs/references.md §4 [derived with scipy.signal.hilbert]: x = (1 + m cos 2πf_m t)·cos 2πf_c t,
 // m = 0.5, f_m = 50 Hz, f_c = 2 kHz, f_s = 10 kHz, 1 s → envelope lines DC 1.0000, f_m 0.5000;
 // squared-envelope lines DC 1.1250, f_m 1.0000, 2f_m 0.1250 (one-sided amplitudes).
 describe('envelope of an AM tone (REFERENCES.md §4)', () => {

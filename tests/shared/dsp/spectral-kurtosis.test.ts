@@ -4,7 +4,7 @@ import { spectralKurtosis } from '../../../shared/dsp/spectral-kurtosis';
 import { gaussian, tone } from '../../helpers/signals';
 
 // SK(f) = ⟨|X|⁴⟩/⟨|X|²⟩² − 2: ≈ 0 for Gaussian noise, −1 for a steady sinusoid, > 0 for
-// impulsive content (J. Antoni, MSSP 20(2):282–307, 2006; REFERENCES.md §4 [derived]).
+// impulsive content (J. Antoni, MSSP 20(2):282–307, 2006; docs/references.md §4 [derived]).
 describe('spectral kurtosis (Antoni 2006)', () => {
   const opts = { frameSize: 256, hop: 128 };
 

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { coherentGain, createWindow, enbwBins } from '../../../shared/dsp/window';
 
 // Source: F. J. Harris, "On the use of windows for harmonic analysis with the discrete Fourier
-// transform", Proc. IEEE 66(1):51–83, 1978 — values as recomputed with scipy in REFERENCES.md §2
+// transform", Proc. IEEE 66(1):51–83, 1978 — values as recomputed with scipy in docs/references.md §2
 // [derived], periodic windows, N ≥ 2048.
 const HARRIS = [
   { kind: 'rectangular', cg: 1.0, enbw: 1.0 },

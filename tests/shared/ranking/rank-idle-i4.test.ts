@@ -62,7 +62,7 @@ describe('idle-i4 equivalents: the alternator outer race against the near-coinci
 
 describe('slipPlausibility', () => {
   // A fixed-race line on one belt with its slip unmeasured: likely −4.94 … 0 % (creep 0–3 %,
-  // REFERENCES.md §5, and cage lag 0–2 %, §4), window −5 … +0.5 % (shared/drive/line-windows.ts).
+  // docs/references.md §5, and cage lag 0–2 %, §4), window −5 … +0.5 % (shared/drive/line-windows.ts).
   const relative = { below: -0.05, above: 0.005, likely: [-0.0494, 0] as [number, number], preferCentre: true };
 
   it('is 1 at the middle of the likely range and 0.85 at its ends', () => {

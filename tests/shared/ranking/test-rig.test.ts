@@ -9,7 +9,7 @@ import { parseDriveDocument } from '../../../shared/schemas/drive';
 
 // The real-recording check of issue 11 on synthetic equivalents: the Case Western Reserve
 // University bearing rig (drive-end 6205-2RS; its table gives BPFI 5.4152 and BPFO 3.5848 × shaft
-// speed, REFERENCES.md §1, published) described as a drive document with no belts and both
+// speed, docs/references.md §1, published) described as a drive document with no belts and both
 // bearings at fixedRatio 1.0 (the team kit's test-rig.drive.json), one reference pulse per
 // revolution, 12 kHz, 10 s at the records' speeds. The records themselves are not in the kit; the
 // drive-end bearing must rank first with the right fault.

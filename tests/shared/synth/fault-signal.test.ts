@@ -25,7 +25,7 @@ describe('planted bearing faults', () => {
   it('puts an unmodulated outer-race line at BPFO × part speed after creep and slip (inner ring turning)', () => {
     const drive = drives.i4Petrol;
     const { fault, spec } = envelopeOf({ drive, seed: 21, fault: { component: 'Alternator', fault: 'outer_race' }, creepPct: 1, rollingSlipPct: 1.5 });
-    // Ratio and factors from shared/drive (REFERENCES.md §1 formulas); the fixed race's line falls by the cage lag.
+    // Ratio and factors from shared/drive (docs/references.md §1 formulas); the fixed race's line falls by the cage lag.
     const ratio = speedRatio(drive, 'Alternator');
     const f = bearingFactors(drive.components.find((c) => c.name === 'Alternator')!.bearing).factors;
     expect(fault.nominalOrder).toBeCloseTo(ratio * f.bpfo, 9);
@@ -111,7 +111,7 @@ describe('planted shaft and belt faults', () => {
       belts: [{ name: 'Belt', lengthMm: 1900, driver: 'Crankshaft', driverPulleyMm: 160 }],
       components: [{ name: 'Crankshaft', kind: 'crankshaft' }, { name: 'Pump', kind: 'water_pump', belt: 'Belt', pulleyMm: 160 }],
     };
-    // Derived in REFERENCES.md §5: belt-pass order 0.26456.
+    // Derived in docs/references.md §5: belt-pass order 0.26456.
     expect(beltPassOrder(drive, 'Belt')).toBeCloseTo(0.26456, 5);
     const capture = generateCapture({ ...base, durationS: 8, sampleRateHz: 8192, rpm: 750, drive, seed: 27, fault: { component: 'Belt', fault: 'belt' }, resonanceHz: 3000 });
     const fault = capture.truth.fault!;

@@ -83,7 +83,7 @@ describe('injector ticks and their slots', () => {
     ['wheel', false, [1, 4], false],
     ['per-cylinder', false, [1, 2, 3, 4], false],
   ] as const)('lists the loudest tick\'s candidates for a %s reference (cam %s) as %o', (refKind, camChannel, candidates, resolved) => {
-    // REFERENCES.md §5 (common practice): a crank-only reference is 360°-ambiguous; an all-cylinder one also (cylinders/2)-fold.
+    // docs/references.md §5 (common practice): a crank-only reference is 360°-ambiguous; an all-cylinder one also (cylinders/2)-fold.
     const ticks = [
       { cylinder: 1, angleDeg: 404, amplitude: 0.9 },
       { cylinder: 3, angleDeg: 584, amplitude: 0.2 },

@@ -3,7 +3,7 @@ import { generateCapture } from '../../../shared/synth/generate-capture';
 import { drives } from '../../helpers/scenarios';
 import { risingEdges } from './signal-checks';
 
-// Four-stroke facts (REFERENCES.md §5, common practice; Heywood 1988, from memory): one engine
+// Four-stroke facts (docs/references.md §5, common practice; Heywood 1988, from memory): one engine
 // cycle is 720° of crank, so a cylinder-1 pulse comes once per two revolutions; a wasted spark
 // once per revolution; one pulse per cylinder gives `cylinders` pulses per cycle. Trigger wheels
 // 60-2 and 36-1 (common practice): 58 and 35 teeth, the gap counted as missing pitches.

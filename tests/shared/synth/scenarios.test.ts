@@ -4,7 +4,7 @@ import { speedRatio, turnsBackwards } from '../../../shared/drive/kinematics';
 import { drives, makeScenarioCapture, scenarios } from '../../helpers/scenarios';
 
 // The scenario set must cover what the ranking checks of the Drive-library issue ask for; the
-// ratio ranges are common practice (REFERENCES.md §5): alternators 2–3.5, pumps about 1–1.3,
+// ratio ranges are common practice (docs/references.md §5): alternators 2–3.5, pumps about 1–1.3,
 // A/C compressors 1.1–1.5.
 
 const component = (name: string, drive = scenarios.find((s) => s.options.fault?.component === name)!.drive) =>

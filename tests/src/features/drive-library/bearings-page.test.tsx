@@ -15,7 +15,7 @@ describe('Bearings page', { timeout: 30_000 }, () => {
     const table = await screen.findByRole('table', { name: 'Bearings' }, { timeout: 5000 });
     const row6205 = within(table).getByText('6205').closest('tr')!;
     expect(within(row6205).getByText('published')).toBeTruthy();
-    // CWRU 6205 BPFO 3.5848 (REFERENCES.md §1, published), shown to four decimals.
+    // CWRU 6205 BPFO 3.5848 (docs/references.md §1, published), shown to four decimals.
     expect(within(row6205).getByText('3.5848')).toBeTruthy();
     expect(screen.queryByRole('button', { name: 'Add bearing' })).toBeNull();
   });
