@@ -13,6 +13,11 @@ import { projectRoot } from './paths';
 import { removeDemoShop, seedDemoShop } from './services/demo-shop';
 import { resolveSessionSecret } from './session-secret';
 import { listenApp } from './tls';
+import { startJobRunner, type JobRunner } from './jobs/job-runner';
+import { closePool, getPool, runTask } from './pool';
+import { seedDemoCases } from './services/demo-cases';
+import { createStorage } from './storage/create-storage';
+import type { AppContext } from './context';
 
 /** A running server. */
 export interface BootedServer {
@@ -46,7 +51,13 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
     logger.info('mail fake listening (messages go to the Outbox)', { url: fake.url });
   }
   const mailer = createSmtpMailer(mailUrl, env.MAIL_FROM);
+  const storage = createStorage(env);
+  if (env.DEMO) {
+    const seeded = await seedDemoCases(storage, logger);
+    if (seeded > 0) logger.info('seeded the demo cases', { cases: seeded });
+  }
   const app = createApp({
+    storage,
     sequelize,
     env,
     mailer,
@@ -58,6 +69,14 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
   const { server, scheme } = await listenApp(app, env).catch((error: unknown) => {
     throw portError(error, env.PORT, 'PORT');
   });
+  let jobs: JobRunner | null = null;
+  if (env.JOBS_IN_PROCESS) {
+    jobs = startJobRunner({
+      sequelize, storage, logger, analyze: (input) => runTask('analyzeFile', input),
+      concurrency: env.JOBS_CONCURRENCY ?? getPool().options.maxThreads, leaseMs: env.JOB_LEASE_S * 1000, pollMs: env.JOB_POLL_MS,
+    });
+    (app.locals.ctx as AppContext).jobs = jobs;
+  }
   const { port } = server.address() as AddressInfo;
   const url = `${scheme}://${env.HOST}:${port}`;
   return {
@@ -69,6 +88,8 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
         server.close(() => resolve());
         server.closeAllConnections();
       });
+      await jobs?.stop();
+      await closePool();
       mailer.close();
       await fake?.stop();
       await sequelize.close();
