@@ -137,3 +137,19 @@ describe('trackSpeedFromPickup and referenceFromTrack', () => {
     expect(ref.phaseResolved).toBe(false);
   });
 });
+
+describe('a capture uploaded without a reference', () => {
+  it('is analysed with speed from the pickup, near its held rpm', async () => {
+    const { captureSettings, CaptureMetadataSchema } = await import('../../../shared/schemas/captures');
+    const m = CaptureMetadataSchema.parse({
+      channels: [{ role: 'pickup' }], reference: null, sensorKind: 'microphone', probePoint: { label: 'near the alternator' },
+      condition: { speed: 'held', heldRpm: 1500 }, source: 'recording',
+    });
+    const s = captureSettings(m);
+    expect(s.speedSource).toBe('pickup');
+    expect(s.expectedRpm).toBe(1500);
+    expect(s.pickupChannel).toBe(1);
+    const withRef = captureSettings(CaptureMetadataSchema.parse({ channels: [{ role: 'reference' }, { role: 'pickup' }], probePoint: { label: 'x' } }));
+    expect(withRef.speedSource).toBeUndefined();
+  });
+});
