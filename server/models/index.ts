@@ -14,12 +14,14 @@ import { Finding, initFinding } from './finding';
 import { Invite, initInvite } from './invite';
 import { MailMessage, initMailMessage } from './mail-message';
 import { PasswordReset, initPasswordReset } from './password-reset';
+import { RatioCalibration, initRatioCalibration } from './ratio-calibration';
 import { Session, initSession } from './session';
 import { Shop, initShop } from './shop';
 import { User, initUser } from './user';
 
 export { BearingType, Belt, DriveComponent, Engine, Invite, MailMessage, PasswordReset, Session, Shop, User };
 export { Analysis, AnalysisSeries, Capture, Case, CaseEvent, Finding };
+export { RatioCalibration };
 
 /** Initialises the models on `sequelize` and defines their associations. Idempotent per instance. */
 export function initModels(sequelize: Sequelize): void {
@@ -39,6 +41,7 @@ export function initModels(sequelize: Sequelize): void {
   initAnalysis(sequelize);
   initAnalysisSeries(sequelize);
   initFinding(sequelize);
+  initRatioCalibration(sequelize);
 
   Shop.hasMany(User, { foreignKey: 'shopId', as: 'users' });
   User.belongsTo(Shop, { foreignKey: 'shopId', as: 'shop' });

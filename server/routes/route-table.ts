@@ -8,6 +8,7 @@ import { bearingRoutes } from './bearings';
 import { captureRoutes } from './captures';
 import { caseRoutes } from './cases';
 import { engineRoutes } from './engines';
+import { calibrationRoutes } from './calibration';
 import { findingRoutes } from './findings';
 import { healthRoutes } from './health';
 import { inviteRoutes } from './invites';
@@ -27,6 +28,7 @@ export const routeTable: readonly RouteRow[] = [
   ...inviteRoutes,
   ...outboxRoutes,
   ...engineRoutes,
+  ...calibrationRoutes,
   ...bearingRoutes,
   ...caseRoutes,
   ...captureRoutes,
