@@ -12,6 +12,7 @@ import { EngineEditor } from '../../features/drive-library/components/engine-edi
 import { paths } from '../paths';
 import { requireUser } from '../route-guards';
 import { enginePath } from './drive-library';
+import { CalibrationCard } from '../../features/drive-library/components/calibration-card';
 
 function engineIdOf(raw: string | undefined): number | 'new' {
   if (raw === 'new') return 'new';
@@ -62,6 +63,7 @@ function ExistingEngine({ id, canWrite }: { id: number; canWrite: boolean }) {
         actions={<EngineActions engine={engine} canWrite={canWrite} onDuplicated={(copy) => navigate(enginePath(copy.id))} onDeleted={() => navigate(paths.driveLibrary)} />}
       />
       <EngineEditor key={engine.id} engine={engine} shopTable={toShopTable(bearings.items)} readOnly={!canWrite} />
+      <div className="mt-6"><CalibrationCard engineId={engine.id} canWrite={canWrite} /></div>
     </>
   );
 }
