@@ -9,6 +9,7 @@ import { captureRoutes } from './captures';
 import { caseRoutes } from './cases';
 import { engineRoutes } from './engines';
 import { calibrationRoutes } from './calibration';
+import { similarCaseRoutes } from './similar-cases';
 import { findingRoutes } from './findings';
 import { healthRoutes } from './health';
 import { inviteRoutes } from './invites';
@@ -29,6 +30,7 @@ export const routeTable: readonly RouteRow[] = [
   ...outboxRoutes,
   ...engineRoutes,
   ...calibrationRoutes,
+  ...similarCaseRoutes,
   ...bearingRoutes,
   ...caseRoutes,
   ...captureRoutes,

@@ -25,3 +25,19 @@ export interface CalibrationDto {
   minCaptures: number;
   parts: CalibrationPartDto[];
 }
+
+/** One confirmed earlier case alike the current one (issue 20 item 4; GET /api/cases/:id/similar). */
+export interface SimilarCaseDto {
+  caseId: number;
+  roNumber: string;
+  vehicleLabel: string;
+  engine: { id: number; name: string };
+  sameEngine: boolean;
+  /** Normalised signature distance 0…1 (0 = same pattern). */
+  distance: number;
+  confirmed: { component: string; fault: string };
+  /** The lead's note on the confirmed cause, or the part and fault. */
+  cause: string;
+}
+
+export interface SimilarCasesDto { items: SimilarCaseDto[] }
