@@ -10,6 +10,7 @@ import { caseRoutes } from './cases';
 import { engineRoutes } from './engines';
 import { calibrationRoutes } from './calibration';
 import { similarCaseRoutes } from './similar-cases';
+import { orderTrackRoutes } from './order-tracks';
 import { findingRoutes } from './findings';
 import { healthRoutes } from './health';
 import { inviteRoutes } from './invites';
@@ -31,6 +32,7 @@ export const routeTable: readonly RouteRow[] = [
   ...engineRoutes,
   ...calibrationRoutes,
   ...similarCaseRoutes,
+  ...orderTrackRoutes,
   ...bearingRoutes,
   ...caseRoutes,
   ...captureRoutes,

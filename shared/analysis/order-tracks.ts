@@ -26,8 +26,8 @@ export interface OrderMap {
 export const ORDER_MAP_REVS = 8;
 /** A capture counts as a sweep when its per-revolution speed spans this ratio (max / min). */
 export const SWEEP_RATIO = 1.2;
-/** Largest order map kept (rows × bins floats, 4 MiB as float32; STYLE.md §6). */
-const MAX_FLOATS = 1 << 20;
+/** Largest order map kept (rows × bins floats, 2 MiB as float32: a stored series stays under 4 MiB; STYLE.md §6). */
+const MAX_FLOATS = 1 << 19;
 
 /**
  * Order map of an angle-domain signal (samplesPerRev per revolution, starting at crank angle
