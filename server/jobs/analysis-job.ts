@@ -5,7 +5,8 @@
  * code from the readers or the pipeline) fails the job at once with that code; a crash (a worker
  * thread that threw something unexpected or was terminated) leaves the job to its lease, so it is
  * taken back when the lease expires and retried up to three attempts (claim.ts). Every write is
- * guarded by `leasedBy = holder`, so a runner that lost its lease never overwrites another's work.
+ * guarded by `leasedBy = holder`, so a runner that lost its lease never overwrites another's work;
+ * a finished job keeps `leasedBy` as the runner that ran it.
  */
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { ZodError } from 'zod';
@@ -48,13 +49,13 @@ async function setStage(deps: JobDeps, id: number, stage: string, progress: numb
 /** Fails the job with a stable code and a message for the technician (guarded by the lease). */
 async function failJob(deps: JobDeps, a: Analysis, caseId: number, name: string, code: string, message: string, extra: Record<string, unknown> = {}): Promise<JobOutcome> {
   const ok = await deps.sequelize.transaction(async (t) => {
-    const [, meta] = await deps.sequelize.query(
+    const result = await deps.sequelize.query(
       `UPDATE analyses SET status = 'failed', stage = 'done', progress = 100, errorCode = :code, errorMessage = :message,
-         settings = :settings, leasedBy = NULL, leaseExpiresAt = NULL, finishedAt = NOW(3), updatedAt = NOW(3)
+         settings = :settings, leaseExpiresAt = NULL, finishedAt = NOW(3), updatedAt = NOW(3)
         WHERE id = :id AND leasedBy = :holder AND status = 'running'`,
       { replacements: { id: a.id, holder: deps.holder, code, message, settings: extra.settings ? JSON.stringify(extra.settings) : null }, transaction: t },
     );
-    if (affected(meta) === 0) return false;
+    if (affected(result) === 0) return false;
     await appendTimeline({ shopId: a.shopId, caseId, actorId: null, kind: 'analysis_failed', message: `Analysis of ${name} failed: ${message}`, data: { analysisId: a.id, captureId: a.captureId, code } }, t);
     return true;
   });
@@ -76,12 +77,15 @@ export async function runClaimedJob(deps: JobDeps, id: number): Promise<JobOutco
   try {
     let drive: DriveDocument | null = null;
     if (c.engineId !== null) {
-      const engine = await Engine.findByPk(c.engineId);
-      if (engine) {
-        const doc = await loadDriveDocument(engine);
+      const engineId = c.engineId;
+      // One transaction: the engine and its drive are read as one snapshot (no torn read).
+      drive = await deps.sequelize.transaction(async (t) => {
+        const engine = await Engine.findByPk(engineId, { transaction: t });
+        if (!engine) return null;
+        const doc = await loadDriveDocument(engine, t);
         delete doc.notes;
-        drive = doc;
-      }
+        return doc;
+      });
     }
     let resolved;
     try {
@@ -125,10 +129,10 @@ export async function runClaimedJob(deps: JobDeps, id: number): Promise<JobOutco
     const rows = seriesRows(out, pickup?.unit ?? 'V');
     const summary = out.summary as { capture?: { sampleRateHz?: number; durationS?: number; channels?: number }; timingsMs?: Record<string, number> };
     const stored = await deps.sequelize.transaction(async (t) => {
-      const [, meta] = await deps.sequelize.query(
+      const result = await deps.sequelize.query(
         `UPDATE analyses SET status = 'done', stage = 'done', progress = 100, errorCode = NULL, errorMessage = NULL,
            settings = :settings, driveSnapshot = :drive, summary = :summary, ranking = :ranking, timingsMs = :timings,
-           leasedBy = NULL, leaseExpiresAt = NULL, finishedAt = NOW(3), updatedAt = NOW(3)
+           leaseExpiresAt = NULL, finishedAt = NOW(3), updatedAt = NOW(3)
           WHERE id = :id AND leasedBy = :holder AND status = 'running'`,
         {
           replacements: {
@@ -139,7 +143,7 @@ export async function runClaimedJob(deps: JobDeps, id: number): Promise<JobOutco
           transaction: t,
         },
       );
-      if (affected(meta) === 0) return false;
+      if (affected(result) === 0) return false;
       await storeSeries(id, rows, t);
       if (summary.capture) {
         await deps.sequelize.query(

@@ -52,16 +52,24 @@ export async function claimJob(sequelize: Sequelize, holder: string, leaseMs: nu
 
 /** Renews the lease while the job runs; false when the lease was lost (another runner took the job). */
 export async function renewLease(sequelize: Sequelize, id: number, holder: string, leaseMs: number): Promise<boolean> {
-  const [, meta] = await sequelize.query(
+  const result = await sequelize.query(
     `UPDATE analyses SET leaseExpiresAt = DATE_ADD(NOW(3), INTERVAL :us MICROSECOND)
       WHERE id = :id AND leasedBy = :holder AND status = 'running'`,
     { replacements: { id, holder, us: Math.round(leaseMs * 1000) } },
   );
-  return affected(meta) > 0;
+  return affected(result) > 0;
 }
 
-/** Number of rows an UPDATE changed (the mariadb driver's result object). */
-export function affected(meta: unknown): number {
-  const m = meta as { affectedRows?: number } | number | undefined;
-  return typeof m === 'number' ? m : (m?.affectedRows ?? 0);
+/**
+ * Number of rows a raw UPDATE changed. Sequelize's mariadb dialect answers a raw query with
+ * [okPacket, meta]: the count is the packet's affectedRows (the second element is not it).
+ */
+export function affected(result: unknown): number {
+  const [first, second] = result as [unknown, unknown];
+  for (const m of [first, second]) {
+    if (typeof m === 'number') return m;
+    const n = (m as { affectedRows?: number } | undefined)?.affectedRows;
+    if (typeof n === 'number') return n;
+  }
+  return 0;
 }

@@ -118,6 +118,9 @@ function captureEngine(storage: ObjectStorage, shopId: (req: Request) => number,
           }
         },
       });
+      // The storage driver's pipeline reports the error; this listener keeps a second emission
+      // (after the pipeline let go of the stream) from becoming an uncaught exception.
+      tap.on('error', () => {});
       file.stream.on('limit', () => tap.destroy(tooLarge(name, maxBytes)));
       file.stream.on('error', (e) => tap.destroy(e));
       file.stream.pipe(tap);

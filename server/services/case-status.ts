@@ -121,8 +121,10 @@ export async function confirmCause(actor: Actor, id: number, body: ConfirmCause)
 export async function reopenCase(actor: Actor, id: number, note: string): Promise<void> {
   await sequelizeOf().transaction(async (t) => {
     const c = await lockCase(actor.shopId, id, t);
+    if (c.status === 'open') {
+      throw new AppError(409, 'illegal_move', 'An open case moves to testing by itself with its first capture; only a ranked or confirmed case can be re-opened', { from: 'open', to: 'testing', allowed: CASE_MOVES.open });
+    }
     assertMove(c, 'testing');
-    if (c.status === 'open') throw illegalMove(c.status, 'testing');
     await reopenWithin(c, t, actor, `${actor.name} re-opened the case for more testing`, note);
   });
 }

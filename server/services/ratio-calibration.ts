@@ -28,6 +28,8 @@ async function loadEngine(shopId: number, engineId: number, t?: Transaction): Pr
 
 /** The current fit over the engine's captures. */
 async function currentFit(shopId: number, engine: Engine, t?: Transaction): Promise<RatioCorrection[]> {
+  // The engine's drive is one aggregate: read it (and the spectra) in one transaction.
+  if (!t) return RatioCalibration.sequelize!.transaction((tx) => currentFit(shopId, engine, tx));
   const drive = await loadDriveDocument(engine, t);
   const cases = await Case.findAll({ where: { shopId, engineId: engine.id }, order: [['id', 'DESC']], limit: MAX_CASES, transaction: t });
   const obs: ShaftLineObservation[] = [];

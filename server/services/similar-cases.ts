@@ -41,7 +41,7 @@ export async function similarCasesFor(shopId: number, caseId: number): Promise<S
     if (!drives.has(engineId)) {
       const engine = await Engine.findOne({ where: { id: engineId, shopId } });
       if (!engine) return null;
-      drives.set(engineId, { engine, drive: await loadDriveDocument(engine) });
+      drives.set(engineId, { engine, drive: await Engine.sequelize!.transaction((t) => loadDriveDocument(engine, t)) });
     }
     return drives.get(engineId)!;
   };

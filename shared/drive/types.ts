@@ -23,6 +23,8 @@ export interface BearingSpec {
   contactDeg?: number;
   factors?: BearingFactors;
   rotatingRing?: RotatingRing;
+  /** Where the geometry comes from (kept through export; informative only). */
+  source?: 'published' | 'measured' | 'estimated';
 }
 
 export interface BeltSpec {
@@ -39,6 +41,8 @@ export interface ComponentSpec {
   kind: ComponentKind;
   belt?: string;
   pulleyMm?: number;
+  /** Outside diameter as measured with calipers (mm); informative, pulleyMm is what the ratios use. */
+  outsideMm?: number;
   backside?: boolean;
   fixedRatio?: number;
   overrunning?: boolean;

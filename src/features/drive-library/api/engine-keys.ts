@@ -8,4 +8,5 @@ export const engineKeys = {
   details: () => [...engineKeys.all, 'detail'] as const,
   detail: (id: number) => [...engineKeys.details(), id] as const,
   calibration: (id: number) => [...engineKeys.detail(id), 'calibration'] as const,
+  history: (id: number) => [...engineKeys.detail(id), 'history'] as const,
 };
