@@ -8,6 +8,9 @@ import { bearingRoutes } from './bearings';
 import { captureRoutes } from './captures';
 import { caseRoutes } from './cases';
 import { engineRoutes } from './engines';
+import { calibrationRoutes } from './calibration';
+import { similarCaseRoutes } from './similar-cases';
+import { orderTrackRoutes } from './order-tracks';
 import { findingRoutes } from './findings';
 import { healthRoutes } from './health';
 import { inviteRoutes } from './invites';
@@ -28,6 +31,9 @@ export const routeTable: readonly RouteRow[] = [
   ...inviteRoutes,
   ...outboxRoutes,
   ...engineRoutes,
+  ...calibrationRoutes,
+  ...similarCaseRoutes,
+  ...orderTrackRoutes,
   ...bearingRoutes,
   ...caseRoutes,
   ...captureRoutes,

@@ -19,6 +19,7 @@ export const paths = {
   captureReview: (caseId: number | string, captureId: number | string, view: CaptureView = 'orders') => `/cases/${caseId}/captures/${captureId}/${view}`,
   caseCompare: (id: number | string) => `/cases/${id}/compare`,
   caseReport: (id: number | string, copy: 'advisor' | 'customer' = 'advisor') => `/cases/${id}/report${copy === 'customer' ? '?copy=customer' : ''}`,
+  caseRecord: (caseId: number | string) => `/cases/${caseId}/record`,
   driveLibrary: '/drive-library',
   bearings: '/bearings',
   capturePlanner: '/capture-planner',

@@ -18,6 +18,7 @@ import { NotFoundRoute } from './routes/not-found';
 import { OutboxMessageRoute, outboxMessageLoader } from './routes/outbox-message';
 import { OutboxIndexRoute, OutboxRoute, outboxLoader } from './routes/outbox';
 import { PublicLayout } from './routes/public-layout';
+import { RecordRoute } from './routes/record';
 import { ResetPasswordCompleteRoute } from './routes/reset-password-complete';
 import { ResetPasswordRoute } from './routes/reset-password';
 import { RootLayout } from './routes/root';
@@ -69,6 +70,7 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
                 { path: '/cases/:caseId/captures/:captureId/:view?', element: <CaptureReviewRoute />, loader: captureReviewLoader(queryClient) },
                 { path: '/cases/:caseId/compare', element: <CaseCompareRoute />, loader: caseLoader(queryClient) },
                 { path: '/cases/:caseId/report', element: <CaseReportRoute />, loader: caseLoader(queryClient) },
+                { path: '/cases/:caseId/record', element: <RecordRoute />, handle: { fullSafetyNote: true } },
                 { path: paths.driveLibrary, element: <DriveLibraryRoute /> },
                 { path: `${paths.driveLibrary}/:engineId`, element: <EngineRoute />, loader: engineLoader(queryClient) },
                 { path: paths.bearings, element: <BearingsRoute />, loader: bearingsLoader(queryClient) },

@@ -186,3 +186,29 @@ export const api = {
 export function isUnauthenticated(error: unknown): boolean {
   return error instanceof ApiError && error.status === 401 && error.code !== 'invalid_credentials';
 }
+
+/**
+ * POSTs a multipart form (file uploads, e.g. a recording) with the session cookie and the CSRF
+ * token; the browser sets the multipart boundary. Resolves to the parsed JSON body; throws ApiError
+ * like the JSON helpers (and retries once on a stale CSRF token).
+ */
+export async function postForm<T>(path: string, form: FormData): Promise<T> {
+  const attempt = async (): Promise<Response> => {
+    try {
+      return await fetch(toUrl(path), { method: 'POST', credentials: 'same-origin', headers: { accept: 'application/json', [CSRF_HEADER]: await getCsrfToken() }, body: form });
+    } catch {
+      throw new ApiError(0, 'network_error', 'The server did not answer. Check that Crankwise is running and try again.');
+    }
+  };
+  let response = await attempt();
+  let parsed = (await response.json().catch(() => undefined)) as { error?: { code?: string; message?: string; details?: unknown } } | undefined;
+  if (response.status === 403 && parsed?.error?.code === 'csrf_invalid') {
+    resetCsrfToken();
+    response = await attempt();
+    parsed = (await response.json().catch(() => undefined)) as typeof parsed;
+  }
+  if (!response.ok) {
+    throw new ApiError(response.status, parsed?.error?.code ?? `http_${response.status}`, parsed?.error?.message ?? `The server answered ${response.status}.`, parsed?.error?.details);
+  }
+  return parsed as T;
+}
