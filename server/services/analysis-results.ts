@@ -61,6 +61,11 @@ export function seriesRows(out: AnalyzeFileOutput, pickupUnit: string): SeriesRo
     }
     frames = f2; amplitude = a2; rpm = r2; hopS *= 2;
   }
+  if (s.orderMap) {
+    // Issue 20 item 5: the sweep's order map, for order tracks (rows × bins amplitudes, then rpm per row).
+    const m = s.orderMap;
+    rows.push({ name: 'order-map', band: 0, meta: { resolution: m.resolution, bins: m.bins, rows: m.rows, unit: pickupUnit }, data: packFloat32(m.amplitude, m.rpm) });
+  }
   rows.push({
     name: 'spectrogram', band: 0,
     meta: { frames, bins, binWidthHz: s.spectrogram.binWidthHz, hopS, startS: s.spectrogram.startS, unit: pickupUnit },
