@@ -223,7 +223,7 @@ describe('Drive library fit for daily use (issue 17)', () => {
     await page.getByLabel('Address').waitFor();
     await shotAt(page, 'i17-shop-setup');
     await page.goto(`${server.baseUrl}/capture-planner`);
-    await page.getByText('Record at least').waitFor();
+    await page.getByText('Record at least', { exact: true }).waitFor();
     await shotAt(page, 'i17-capture-planner');
     expect(problems).toEqual([]);
     await page.context().close();
