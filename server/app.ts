@@ -19,6 +19,9 @@ import { requestId } from './middleware/request-id';
 import { resetRequestLimit, signInIpLimit, signInLimit } from './middleware/signin-limit';
 import { buildRouter } from './routes/build-router';
 import { routeTable } from './routes/route-table';
+import { registerCaseEngineUsage } from './services/cases';
+import { createStorage } from './storage/create-storage';
+import type { ObjectStorage } from './storage/storage';
 
 /** What createApp() needs. */
 export interface CreateAppOptions {
@@ -30,6 +33,8 @@ export interface CreateAppOptions {
   logger?: Logger;
   /** Folder of the built client to serve with an SPA fallback; omitted = API only. */
   clientDir?: string;
+  /** Capture storage; omitted = the one the env asks for (STORAGE). */
+  storage?: ObjectStorage;
 }
 
 const SESSION_COOKIE = 'crankwise.sid';
@@ -41,6 +46,8 @@ export function createApp(options: CreateAppOptions): Express {
   const secure = cookiesSecure(env);
   const app = express();
   app.disable('x-powered-by');
+  // A case registers its engine: an engine a case uses cannot be deleted (services/engine-usage.ts).
+  registerCaseEngineUsage();
   if (env.TRUST_PROXY !== undefined) {
     const hops = Number(env.TRUST_PROXY);
     app.set('trust proxy', Number.isInteger(hops) ? hops : env.TRUST_PROXY === 'true' ? true : env.TRUST_PROXY);
@@ -69,6 +76,7 @@ export function createApp(options: CreateAppOptions): Express {
     csrf: createCsrf(sessionSecret, secure),
     publicUrl: publicUrl(env),
     sessionCookie: SESSION_COOKIE,
+    storage: options.storage ?? createStorage(env),
   };
   app.locals.ctx = ctx;
 

@@ -13,6 +13,15 @@ import { createSmtpMailer } from './mail/mailer';
 import { projectRoot } from './paths';
 import { removeDemoShop, seedDemoShop } from './services/demo-shop';
 import { resolveSessionSecret } from './session-secret';
+import { startJobRunner, type JobRunner } from './jobs/job-runner';
+import { closePool, getPool, runTask } from './pool';
+import { seedDemoCases } from './services/demo-cases';
+import { createStorage } from './storage/create-storage';
+import { sweepStorage } from './storage/sweep';
+import type { AppContext } from './context';
+
+/** How long close() waits for requests in progress before cutting their connections. */
+const SHUTDOWN_GRACE_MS = 10_000;
 
 /** A running server. */
 export interface BootedServer {
@@ -46,7 +55,16 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
     logger.info('mail fake listening (messages go to the Outbox)', { url: fake.url });
   }
   const mailer = createSmtpMailer(mailUrl, env.MAIL_FROM);
+  const storage = createStorage(env);
+  // The start-up sweep runs beside the server (a large bucket takes a while); it only logs.
+  void sweepStorage({ sequelize, storage, logger: logger.child({ component: 'sweep' }), graceMs: env.ORPHAN_GRACE_MIN * 60_000 }).catch((error: unknown) =>
+    logger.error('storage sweep failed', { error }));
+  if (env.DEMO) {
+    const seeded = await seedDemoCases(storage, logger);
+    if (seeded > 0) logger.info('seeded the demo cases', { cases: seeded });
+  }
   const app = createApp({
+    storage,
     sequelize,
     env,
     mailer,
@@ -58,6 +76,20 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
     const s = app.listen(env.PORT, env.HOST, () => resolve(s));
     s.once('error', (error) => reject(portError(error, env.PORT, 'PORT')));
   });
+  // Requests in progress, so that close() lets them finish before the database pool closes.
+  let inFlight = 0;
+  server.on('request', (_req, res: import('node:http').ServerResponse) => {
+    inFlight += 1;
+    res.once('close', () => (inFlight -= 1));
+  });
+  let jobs: JobRunner | null = null;
+  if (env.JOBS_IN_PROCESS) {
+    jobs = startJobRunner({
+      sequelize, storage, logger, analyze: (input) => runTask('analyzeFile', input),
+      concurrency: env.JOBS_CONCURRENCY ?? getPool().options.maxThreads, leaseMs: env.JOB_LEASE_S * 1000, pollMs: env.JOB_POLL_MS,
+    });
+    (app.locals.ctx as AppContext).jobs = jobs;
+  }
   const { port } = server.address() as AddressInfo;
   const url = `http://${env.HOST}:${port}`;
   return {
@@ -65,10 +97,16 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
     demoCreated,
     mailFakeUrl: fake?.url ?? null,
     async close() {
-      await new Promise<void>((resolve) => {
-        server.close(() => resolve());
-        server.closeAllConnections();
-      });
+      // Stop accepting, let requests in progress finish (at most SHUTDOWN_GRACE_MS), then cut the
+      // rest: a handler must not find the database pool closed under it mid-transaction.
+      const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+      server.closeIdleConnections();
+      const deadline = Date.now() + SHUTDOWN_GRACE_MS;
+      while (inFlight > 0 && Date.now() < deadline) await new Promise((r) => setTimeout(r, 50));
+      server.closeAllConnections();
+      await closed;
+      await jobs?.stop();
+      await closePool();
       mailer.close();
       await fake?.stop();
       await sequelize.close();

@@ -6,6 +6,7 @@ import type { Env } from './env';
 import type { Logger } from './logger';
 import type { Mailer } from './mail/mailer';
 import type { Csrf } from './middleware/csrf';
+import type { ObjectStorage } from './storage/storage';
 
 /** The app's collaborators, built once by createApp(). */
 export interface AppContext {
@@ -24,6 +25,10 @@ export interface AppContext {
   publicUrl: string;
   /** Name of the session cookie (cleared at sign-out). */
   sessionCookie: string;
+  /** Where capture files are stored (server/storage). */
+  storage: ObjectStorage;
+  /** The in-process job runner, when one runs (woken after an upload so it need not wait for its poll). */
+  jobs?: { wake(): void };
 }
 
 /** The context of the app serving `req`. */

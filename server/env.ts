@@ -37,6 +37,35 @@ export const EnvSchema = z.object({
   LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
   /** Folder of the built client (served with an SPA fallback); unset = dist/client under the project. */
   CLIENT_DIR: z.string().optional(),
+  // Capture storage and analysis jobs (README "Capture storage" and "Analysis jobs").
+  /** Where capture files go: a local folder (default) or S3-compatible object storage. */
+  STORAGE: z.enum(['local', 's3']).default('local'),
+  /** Folder of the local driver; unset = .data/captures under the project. */
+  STORAGE_DIR: z.string().optional(),
+  S3_BUCKET: z.string().optional(),
+  S3_ENDPOINT: z.url().optional(),
+  S3_REGION: z.string().default('us-east-1'),
+  S3_ACCESS_KEY_ID: z.string().optional(),
+  S3_SECRET_ACCESS_KEY: z.string().optional(),
+  S3_PREFIX: z.string().regex(/^([a-z0-9._-]+\/)*$/, 'use lower-case path segments ending in /').default(''),
+  /** Largest capture file accepted (MB); larger ones are answered 413. */
+  UPLOAD_MAX_MB: z.coerce.number().positive().max(4096).default(256),
+  /** Run a job runner inside the server process (off when only `npm run jobs` machines analyse). */
+  JOBS_IN_PROCESS: boolish.default(true),
+  /** Jobs one runner runs at once; unset = the pool's thread count. */
+  JOBS_CONCURRENCY: z.coerce.number().int().min(1).max(64).optional(),
+  /** Lease length (s): a job whose runner stopped renewing it is taken back after this. */
+  JOB_LEASE_S: z.coerce.number().positive().max(3600).default(60),
+  /** How often an idle runner looks for queued jobs (ms). */
+  JOB_POLL_MS: z.coerce.number().int().min(10).max(60_000).default(500),
+  /** Stored files without a capture row are removed at start-up once older than this (minutes). */
+  ORPHAN_GRACE_MIN: z.coerce.number().min(0).max(10_080).default(60),
+}).superRefine((e, ctx) => {
+  if (e.STORAGE === 's3') {
+    for (const k of ['S3_BUCKET', 'S3_ACCESS_KEY_ID', 'S3_SECRET_ACCESS_KEY'] as const) {
+      if (!e[k]) ctx.addIssue({ code: 'custom', path: [k], message: 'required when STORAGE=s3' });
+    }
+  }
 });
 
 /** The parsed environment. */

@@ -24,6 +24,11 @@ export interface AnalyzeFileInput {
 /** An order spectrum as float32 bins (bin k at order k·resolution). */
 export interface SpectrumSeries {
   resolution: number;
+  /** Block layout behind the spectrum (the stored spectra are re-ranked without re-analysing). */
+  maxOrder?: number;
+  samplesPerRev?: number;
+  revsPerBlock?: number;
+  blocks?: number;
   amplitude: Float32Array;
   floor: Float32Array;
 }
@@ -44,11 +49,27 @@ export interface AnalyzeFileOutput {
   /** The ranking with its matched lines (for Findings). */
   ranking: RankingEntry[];
   series: AnalysisSeries;
+  /** What a later re-rank over the stored spectra needs besides them (shared/analysis/types.ts RankingInput). */
+  rankingContext?: { cylinders: number; cyclesAveraged: number; meanRpm: number; envelopeScores: number[] };
+}
+
+/** The pickup channel of a capture as a 48 kHz 16-bit mono WAV for listening (issue 15 item 7). */
+export interface PickupAudioInput {
+  path: string;
+  /** 1-based channel of the pickup. */
+  channel: number;
+  name?: string;
+}
+
+export interface PickupAudioOutput {
+  /** The whole WAV file. */
+  wav: Uint8Array;
 }
 
 /** Task name → input and output. */
 export interface TaskMap {
   analyzeFile: { input: AnalyzeFileInput; output: AnalyzeFileOutput };
+  pickupAudio: { input: PickupAudioInput; output: PickupAudioOutput };
 }
 
 export type TaskName = keyof TaskMap;

@@ -1,10 +1,16 @@
 // Initialises every model on one Sequelize instance and wires the associations.
 // The one barrel file allowed (STYLE.md §2): later issues add their init and associations here.
 import type { Sequelize } from 'sequelize';
+import { Analysis, initAnalysis } from './analysis';
+import { AnalysisSeries, initAnalysisSeries } from './analysis-series';
 import { BearingType, initBearingType } from './bearing-type';
 import { Belt, initBelt } from './belt';
+import { Capture, initCapture } from './capture';
+import { Case, initCase } from './case';
+import { CaseEvent, initCaseEvent } from './case-event';
 import { DriveComponent, initDriveComponent } from './drive-component';
 import { Engine, initEngine } from './engine';
+import { Finding, initFinding } from './finding';
 import { EngineRevision, initEngineRevision } from './engine-revision';
 import { Invite, initInvite } from './invite';
 import { MailMessage, initMailMessage } from './mail-message';
@@ -13,6 +19,7 @@ import { Session, initSession } from './session';
 import { Shop, initShop } from './shop';
 import { User, initUser } from './user';
 
+export { Analysis, AnalysisSeries, Capture, Case, CaseEvent, Finding };
 export { BearingType, Belt, DriveComponent, Engine, EngineRevision, Invite, MailMessage, PasswordReset, Session, Shop, User };
 
 /** Initialises the models on `sequelize` and defines their associations. Idempotent per instance. */
@@ -27,6 +34,12 @@ export function initModels(sequelize: Sequelize): void {
   initEngine(sequelize);
   initBelt(sequelize);
   initDriveComponent(sequelize);
+  initCase(sequelize);
+  initCaseEvent(sequelize);
+  initCapture(sequelize);
+  initAnalysis(sequelize);
+  initAnalysisSeries(sequelize);
+  initFinding(sequelize);
   initEngineRevision(sequelize);
 
   Shop.hasMany(User, { foreignKey: 'shopId', as: 'users' });
@@ -45,6 +58,14 @@ export function initModels(sequelize: Sequelize): void {
   Engine.hasMany(DriveComponent, { foreignKey: 'engineId', as: 'components' });
   Belt.belongsTo(DriveComponent, { foreignKey: 'driverComponentId', as: 'driverComponent', constraints: false });
   DriveComponent.belongsTo(Belt, { foreignKey: 'beltId', as: 'belt', constraints: false });
+  // Cases (issue 15): a case's people and engine, its timeline, captures, analyses and findings.
+  Case.belongsTo(Engine, { foreignKey: 'engineId', as: 'engine', constraints: false });
+  Case.belongsTo(User, { foreignKey: 'technicianId', as: 'technician', constraints: false });
+  Case.belongsTo(User, { foreignKey: 'leadId', as: 'lead', constraints: false });
+  CaseEvent.belongsTo(User, { foreignKey: 'actorId', as: 'actor', constraints: false });
+  Capture.belongsTo(User, { foreignKey: 'uploadedById', as: 'uploadedBy', constraints: false });
+  Analysis.belongsTo(Capture, { foreignKey: 'captureId', as: 'capture', constraints: false });
+  Finding.belongsTo(User, { foreignKey: 'decidedById', as: 'decidedBy', constraints: false });
   Engine.hasMany(EngineRevision, { foreignKey: 'engineId', as: 'revisions' });
   Shop.hasMany(EngineRevision, { foreignKey: 'shopId' });
 }

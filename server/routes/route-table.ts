@@ -2,9 +2,13 @@
 // parameter names a shop-owned record. The /api router is built from it (build-router.ts) and
 // tests/server/routes/route-table.test.ts walks every row for every role and a signed-out visitor.
 // To add routes: write a file exporting `xRoutes: RouteRow[]` and concatenate it here.
+import { analysisRoutes } from './analyses';
 import { authRoutes } from './auth';
 import { bearingRoutes } from './bearings';
+import { captureRoutes } from './captures';
+import { caseRoutes } from './cases';
 import { engineRoutes } from './engines';
+import { findingRoutes } from './findings';
 import { healthRoutes } from './health';
 import { inviteRoutes } from './invites';
 import { outboxRoutes } from './outbox';
@@ -24,4 +28,8 @@ export const routeTable: readonly RouteRow[] = [
   ...outboxRoutes,
   ...engineRoutes,
   ...bearingRoutes,
+  ...caseRoutes,
+  ...captureRoutes,
+  ...analysisRoutes,
+  ...findingRoutes,
 ];

@@ -8,6 +8,7 @@ import type { OwnedResource } from '../../server/routes/owned-resources';
 import { BearingType } from '../../server/models';
 import { createEngine } from '../../server/services/engines';
 import { DEMO_I4 } from '../../server/db/seeders/demo-engines';
+import { createCaptureRow, createCaseRow, createFindingRow } from './case-factories';
 
 /** A unique suffix for names and e-mails. */
 export const uniq = () => randomBytes(4).toString('hex');
@@ -86,4 +87,8 @@ export const ownedFactories: Record<OwnedResource, (shop: Shop) => Promise<numbe
   engine: async (shop) => (await createEngine(shop.id, { ...DEMO_I4, name: `Engine ${uniq()}` })).engine.id,
   bearing: async (shop) =>
     (await BearingType.create({ shopId: shop.id, designation: `T${uniq()}`, designationKey: `T${uniq()}`.toUpperCase(), balls: 8, ballMm: 6, pitchMm: 30, contactDeg: 0, source: 'measured', notes: '' })).id,
+  case: async (shop) => (await createCaseRow(shop)).id,
+  capture: async (shop) => (await createCaptureRow(shop, await createCaseRow(shop))).capture.id,
+  analysis: async (shop) => (await createCaptureRow(shop, await createCaseRow(shop))).analysis.id,
+  finding: async (shop) => (await createFindingRow(shop, await createCaseRow(shop))).id,
 };

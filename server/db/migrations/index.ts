@@ -15,6 +15,12 @@ import { migration as addShopSettings } from './202612030745-add-shop-settings';
 import { migration as addEngineVersion } from './202612030746-add-engine-version';
 import { migration as createEngineRevisions } from './202612030747-create-engine-revisions';
 import { migration as addComponentMeasured } from './202612030748-add-component-measured';
+import { migration as createCases } from './202612030800-create-cases';
+import { migration as createCaseEvents } from './202612030801-create-case-events';
+import { migration as createCaptures } from './202612030802-create-captures';
+import { migration as createAnalyses } from './202612030803-create-analyses';
+import { migration as createAnalysisSeries } from './202612030804-create-analysis-series';
+import { migration as createFindings } from './202612030805-create-findings';
 
 /** The ordered list umzug runs. */
 export const migrations: MigrationModule[] = [
@@ -32,4 +38,10 @@ export const migrations: MigrationModule[] = [
   addEngineVersion,
   createEngineRevisions,
   addComponentMeasured,
+  createCases,
+  createCaseEvents,
+  createCaptures,
+  createAnalyses,
+  createAnalysisSeries,
+  createFindings,
 ];
