@@ -59,7 +59,11 @@ export function formatSummary(r: AnalysisResult, name: string, fits?: FitsDrive)
   lines.push(`${name}: ${r.capture.durationS.toFixed(1)} seconds at ${(r.capture.sampleRateHz / 1000).toFixed(1)} kHz, ${plural(r.capture.channels, 'channel')}.`);
   lines.push('');
   lines.push(`Engine speed: ${s.meanRpm.toFixed(0)} rpm on average (from ${s.minRpm.toFixed(0)} to ${s.maxRpm.toFixed(0)} rpm, steady within ${s.stabilityPct.toFixed(1)} %).`);
-  lines.push(`  Counted ${plural(s.edges, 'reference pulse')}${s.repairedEdges ? `, ${s.repairedEdges} missed or extra pulse${s.repairedEdges === 1 ? '' : 's'} repaired` : ''}${s.gaps ? `, ${plural(s.gaps, 'gap')} of the trigger wheel` : ''}.`);
+  if (s.fromPickup) {
+    lines.push(`  Read from the pickup itself (no reference): its strongest engine line taken as the firing order ${s.fromPickup.firingOrder}, ${s.fromPickup.lineDb.toFixed(0)} dB above the floor, confidence ${s.fromPickup.confidence.toFixed(2)}. Every order below is relative to that assumption.`);
+  } else {
+    lines.push(`  Counted ${plural(s.edges, 'reference pulse')}${s.repairedEdges ? `, ${s.repairedEdges} missed or extra pulse${s.repairedEdges === 1 ? '' : 's'} repaired` : ''}${s.gaps ? `, ${plural(s.gaps, 'gap')} of the trigger wheel` : ''}.`);
+  }
   lines.push('');
   lines.push(`Strongest lines in the vibration (orders are multiples of crank speed; resolution ${r.orders.spectrum.resolution} order):`);
   const top = r.orders.peaks.slice(0, 5);
@@ -71,7 +75,8 @@ export function formatSummary(r: AnalysisResult, name: string, fits?: FitsDrive)
   for (const p of topEnvelope) lines.push(`  ${describePeak(p, unit)}`);
   lines.push('');
   const e = r.cycle.event;
-  lines.push(`Engine cycle: ${plural(r.cycle.cyclesAveraged, 'cycle')} averaged. ${e
+  if (r.cycle.available === false) lines.push('Engine cycle: unavailable without a reference (the 720° phase is unknown).');
+  else lines.push(`Engine cycle: ${plural(r.cycle.cyclesAveraged, 'cycle')} averaged. ${e
     ? `The strongest knock comes ${e.afterTdcDeg.toFixed(0)}° after TDC ${e.cylinder !== null ? `in cylinder ${e.cylinder}'s firing slot` : `in the slot of cylinder ${e.candidates.join(' or ')} (the reference cannot tell which)`} — the slot says whose power stroke is under way, not where the noise comes from.`
     : 'No knock stands out within the cycle.'}`);
   if (r.ranking.length > 0) {

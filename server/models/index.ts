@@ -15,12 +15,14 @@ import { EngineRevision, initEngineRevision } from './engine-revision';
 import { Invite, initInvite } from './invite';
 import { MailMessage, initMailMessage } from './mail-message';
 import { PasswordReset, initPasswordReset } from './password-reset';
+import { RatioCalibration, initRatioCalibration } from './ratio-calibration';
 import { Session, initSession } from './session';
 import { Shop, initShop } from './shop';
 import { User, initUser } from './user';
 
 export { Analysis, AnalysisSeries, Capture, Case, CaseEvent, Finding };
 export { BearingType, Belt, DriveComponent, Engine, EngineRevision, Invite, MailMessage, PasswordReset, Session, Shop, User };
+export { RatioCalibration };
 
 /** Initialises the models on `sequelize` and defines their associations. Idempotent per instance. */
 export function initModels(sequelize: Sequelize): void {
@@ -41,6 +43,7 @@ export function initModels(sequelize: Sequelize): void {
   initAnalysisSeries(sequelize);
   initFinding(sequelize);
   initEngineRevision(sequelize);
+  initRatioCalibration(sequelize);
 
   Shop.hasMany(User, { foreignKey: 'shopId', as: 'users' });
   User.belongsTo(Shop, { foreignKey: 'shopId', as: 'shop' });

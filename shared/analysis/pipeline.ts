@@ -2,7 +2,7 @@ import { CaptureFormatError } from '../formats/capture-format-error';
 import { decimateByTwo, designHalfBand, designLowPass, kaiserLength } from '../dsp/fir';
 import { FftPlanCache, nextPowerOfTwo } from '../dsp/fft';
 import { overlapSaveFilter } from '../dsp/overlap-save';
-import { type AnalysisSettings, AnalysisSettingsSchema } from '../schemas/analysis-settings';
+import { type AnalysisSettings, AnalysisSettingsSchema, FALLBACK_EXPECTED_RPM } from '../schemas/analysis-settings';
 import { type DriveDocument } from '../drive/types';
 import { AnalysisInputError } from './analysis-input-error';
 import { checkPickupNotFlat, checkSpeedPlausible } from './signal-checks';
@@ -14,7 +14,9 @@ import { envelopeSpectra } from './envelope-spectrum';
 import { commonFiringOrder } from './firing-order';
 import { orderPeaks } from './order-peaks';
 import { orderSpectrum } from './order-spectrum';
-import { extractReference } from './reference';
+import { type OrderMap, orderMap, SWEEP_RATIO } from './order-tracks';
+import { type PickupSpeedTrack, referenceFromTrack, trackSpeedFromPickup } from './pickup-speed';
+import { extractReference, type ReferenceResult } from './reference';
 import { spectrogram } from './spectrogram';
 import { subtractAverage, synchronousAverage } from './synchronous-average';
 import { type AnalysisResult, type EnvelopeBand, type RankingEntry, type RankingInput, type Warning } from './types';
@@ -79,12 +81,15 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
   if (!(fs > 0 && Number.isFinite(fs))) throw new RangeError(`sample rate must be a positive number of Hz, got ${fs}`);
   const warnings: Warning[] = (options.notes ?? []).map((message) => ({ code: 'reader_note', message }));
   const nch = input.channels.length;
-  const roles: [string, number][] = [['--ref-channel', settings.refChannel], ['--pickup-channel', settings.pickupChannel]];
-  if (settings.camChannel) roles.push(['--cam-channel', settings.camChannel]);
+  const fromPickup = settings.speedSource === 'pickup';
+  // Speed from the pickup: the reference and cam channels are not read, so they need not exist.
+  const roles: [string, number][] = fromPickup ? [['--pickup-channel', settings.pickupChannel]]
+    : [['--ref-channel', settings.refChannel], ['--pickup-channel', settings.pickupChannel]];
+  if (settings.camChannel && !fromPickup) roles.push(['--cam-channel', settings.camChannel]);
   for (const [flag, ch] of roles) {
     if (ch > nch) {
       throw new CaptureFormatError('too_few_channels',
-        `the capture has ${nch} channel${nch === 1 ? '' : 's'} but ${flag} ${ch} asks for channel ${ch}; record the reference and the pickup together or fix ${flag}`);
+        `the capture has ${nch} channel${nch === 1 ? '' : 's'} but ${flag} ${ch} asks for channel ${ch}; record the reference and the pickup together or fix ${flag}${nch === 1 ? ' (a one-channel recording: --pickup-channel 1 --speed-source pickup reads speed from the pickup)' : ''}`);
     }
   }
   // One channel cannot carry two roles: the reference pulses would swamp the vibration spectrum
@@ -100,8 +105,8 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
   const n = input.channels[0].length;
   const durationS = n / fs;
   const scale = (ch: number) => settings.channelScales[ch - 1] ?? 1;
-  const ref = toFloat32(input.channels[settings.refChannel - 1], scale(settings.refChannel));
-  const cam = settings.camChannel ? toFloat32(input.channels[settings.camChannel - 1], 1) : null;
+  const ref = fromPickup ? null : toFloat32(input.channels[settings.refChannel - 1], scale(settings.refChannel));
+  const cam = settings.camChannel && !fromPickup ? toFloat32(input.channels[settings.camChannel - 1], 1) : null;
   const pickupRaw = input.channels[settings.pickupChannel - 1];
   const pickupScale = scale(settings.pickupChannel);
   checkPickupNotFlat(pickupRaw, settings.pickupChannel);
@@ -116,10 +121,29 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
 
   // 2–3. Reference and crank speed.
   let t0 = clock();
-  const reference = extractReference(ref, fs, settings, cam);
+  let reference: ReferenceResult;
+  let pickupTrack: PickupSpeedTrack | null = null;
+  if (ref) {
+    reference = extractReference(ref, fs, settings, cam);
+  } else {
+    const expectedRpm = settings.expectedRpm ?? options.drive?.idleRpm ?? FALLBACK_EXPECTED_RPM;
+    pickupTrack = trackSpeedFromPickup(pickupRaw, fs, { cylinders: settings.cylinders, expectedRpm, minRpm: settings.minRpm, maxRpm: settings.maxRpm }, plans);
+    reference = referenceFromTrack(pickupTrack, durationS);
+    warnings.push({
+      code: 'speed_from_pickup',
+      message: `no reference: speed read from the pickup's strongest engine line, taken as the firing order ${pickupTrack.firingOrder} of ${settings.cylinders} cylinders near ${expectedRpm.toFixed(0)} rpm (confidence ${pickupTrack.confidence.toFixed(2)}); every order is relative to that assumption, and the engine-cycle view is unavailable`,
+    });
+  }
   warnings.push(...reference.warnings);
   const crank = crankAngle(reference);
   const speed = crankSpeed(reference, crank, durationS);
+  if (pickupTrack) {
+    speed.source = 'pickup';
+    speed.fromPickup = {
+      firingOrder: pickupTrack.firingOrder, confidence: pickupTrack.confidence, lineDb: pickupTrack.lineDb,
+      presentFraction: pickupTrack.presentFraction, marginDb: pickupTrack.marginDb,
+    };
+  }
   if (speed.meanRpm < settings.minRpm || speed.meanRpm > settings.maxRpm) {
     warnings.push({ code: 'rpm_implausible', message: `mean speed ${speed.meanRpm.toFixed(0)} rpm is outside ${settings.minRpm}–${settings.maxRpm} rpm; check --ref-kind and --ref-per-cycle` });
   }
@@ -170,6 +194,10 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
   }
   const xAng = resampleAtAngles(xO, fsO, crank.timeAt, crank.firstDeg, count, spr);
   const orders = orderSpectrum(xAng, spr, rpb, maxOrder, plans);
+  // A sweep (run-up, run-down) also gets an order map, for order tracks against rpm (issue 20 item 5).
+  const sweepMap: OrderMap | undefined = speed.maxRpm >= SWEEP_RATIO * speed.minRpm && revs >= 16
+    ? orderMap(xAng, spr, crank.firstDeg, (deg) => crank.timeAt.at(deg), maxOrder, plans)
+    : undefined;
   t.orders = clock() - t0;
 
   // 5. Envelope of the residual after the 720° average, in the angle domain at a high rate.
@@ -194,10 +222,15 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
   const residualOk = avg.cycles >= 2;
   // 6. The engine-cycle view reads the angle-domain pickup before the residual replaces it in place.
   const t1 = clock();
-  const cycle = cycleView({
+  const cycleFull = cycleView({
     x: xHi, samplesPerRev: hiSpr, tdcOffsetDeg: settings.tdcOffsetDeg, firingOrder,
     phaseResolved: reference.phaseResolved, ambiguityDeg: reference.ambiguityDeg, plans, average: avg.average,
   });
+  // Without a reference the 720° phase is unknown and the angle is integrated from a speed
+  // estimate: no event is placed in a cylinder's slot, no cycle view drawn.
+  const cycle: typeof cycleFull = pickupTrack
+    ? { tdcOffsetDeg: cycleFull.tdcOffsetDeg, phaseResolved: false, cyclesAveraged: cycleFull.cyclesAveraged, event: null, available: false }
+    : cycleFull;
   t.cycle = clock() - t1;
   const residual = residualOk ? subtractAverage(xHi, avg.average, xHi) : xHi;
   if (!residualOk) warnings.push({ code: 'no_cycle_average', message: 'fewer than two engine cycles: the envelope band was chosen without removing the engine cycle' });
@@ -258,6 +291,7 @@ export function runPipeline(input: PipelineInput, settingsIn: AnalysisSettings, 
     },
     cycle,
     spectrogram: spec,
+    ...(sweepMap ? { orderMap: sweepMap } : {}),
     ranking,
     warnings,
     timingsMs: {

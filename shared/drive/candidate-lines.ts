@@ -20,6 +20,28 @@ export interface CandidateOptions {
   knownSlip?: Record<string, number>;
   /** Number of defect harmonics per bearing fault (default 3). */
   harmonics?: number;
+  /**
+   * Accepted ratio calibrations per component name (issue 20 item 3): the part's lines move to
+   * nominal ratio × factor and its windows narrow to the measured scatter (see `calibratedWindow`).
+   */
+  calibration?: Record<string, AcceptedCalibration>;
+}
+
+/** An effective-ratio correction a lead accepted: factor = effective / nominal ratio; uncertainty = its ± as a fraction. */
+export interface AcceptedCalibration { factor: number; uncertainty: number }
+
+/**
+ * Window of a line of a calibrated part: the creep allowance is gone (the factor holds the part's
+ * usual creep), replaced by twice the measured scatter (at least ±0.3 %, the fixed-ratio spread),
+ * plus the rolling-slip allowance for bearing lines (as for a known slip of 0).
+ */
+export function calibratedWindow(
+  line: Pick<CandidateLine, 'role' | 'nominalOrder' | 'sideband' | 'carrierHarmonic' | 'modulatorOrder' | 'fault'>,
+  regime: DriveRegime, rotatingRing: RotatingRing, beltStages: number, uncertainty: number,
+): [number, number] {
+  const [lo, hi] = windowOf(line, regime, rotatingRing, 0, beltStages);
+  const pad = Math.max(0, 2 * uncertainty - 0.003) * line.nominalOrder;
+  return [lo - pad, hi + pad];
 }
 
 /** Engine-synchronous step: every multiple of half an order (the 720° cycle). */
@@ -128,16 +150,19 @@ export function candidateLines(drive: DriveDocument, options: CandidateOptions =
   const out: ComponentCandidates[] = [];
   for (const component of drive.components) {
     if (component.kind === 'crankshaft') continue;
-    const ratio = speedRatio(drive, component.name);
     const regime = driveRegime(component);
+    const cal = regime === 'belt' ? options.calibration?.[component.name] : undefined;
+    const ratio = speedRatio(drive, component.name) * (cal?.factor ?? 1);
     const bearing = bearingFactors(component.bearing, options.shopTable);
     const slip = options.knownSlip?.[component.name];
     const stages = beltStages(drive, component.name);
     const lines = componentSeeds(ratio, bearing.factors, bearing.rotatingRing, harmonics).map((seed) =>
-      finishLine(seed, windowOf(seed, regime, bearing.rotatingRing, slip, stages), ratio, seed.spectrum === 'orders' ? padOrders : padEnvelope));
+      finishLine(seed, cal ? calibratedWindow(seed, regime, bearing.rotatingRing, stages, cal.uncertainty) : windowOf(seed, regime, bearing.rotatingRing, slip, stages),
+        ratio, seed.spectrum === 'orders' ? padOrders : padEnvelope));
     out.push({
       component: component.name, target: 'component', kind: component.kind, ratio, factors: bearing.factors,
       approximate: bearing.approximate, rotatingRing: bearing.rotatingRing, regime, beltStages: stages, lines,
+      ...(cal ? { calibrated: cal } : {}),
     });
   }
   for (const belt of drive.belts) {

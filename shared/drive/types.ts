@@ -107,4 +107,6 @@ export interface ComponentCandidates {
   /** Friction-belt stages between the crank and the part (for a belt: its driver); each adds creep. */
   beltStages: number;
   lines: CandidateLine[];
+  /** An accepted ratio calibration moved and narrowed this part's lines (issue 20 item 3). */
+  calibrated?: { factor: number; uncertainty: number };
 }

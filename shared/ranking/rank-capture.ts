@@ -8,7 +8,7 @@
  */
 import type { MatchedLine, OrderSpectrum, RankingEntry, RankingInput } from '../analysis/types';
 import type { BearingTable } from '../drive/bearing-table';
-import { candidateLines, windowOf } from '../drive/candidate-lines';
+import { type CandidateOptions, candidateLines, windowOf } from '../drive/candidate-lines';
 import { likelyDeviation, relativeWindow } from '../drive/line-windows';
 import type { CandidateLine, ComponentCandidates, DriveDocument, Fault } from '../drive/types';
 import { estimateSlip, type SlipEstimate } from './estimate-slip';
@@ -22,6 +22,8 @@ import { topOrder } from './spectrum-lines';
 export interface RankOptions {
   /** The shop's bearing table, searched before the built-in rows. */
   shopTable?: BearingTable;
+  /** Ratio calibrations the lead accepted, per component name (shared/ranking/ratio-calibration.ts). */
+  calibration?: CandidateOptions['calibration'];
 }
 
 const COMPONENT_FAULTS: Fault[] = ['shaft', 'outer_race', 'inner_race', 'ball', 'cage'];
@@ -53,7 +55,8 @@ function searchFor(cc: ComponentCandidates, fault: Fault, cyclesAveraged: number
   // The turning race rises by the cage lag times the other race's share (docs/references.md §1, §4).
   const f = cc.factors;
   const share = f && role === 'turning' ? (fault === 'inner_race' ? f.bpfo / f.bpfi : f.bpfi / f.bpfo) : undefined;
-  const likely = likelyDeviation(role, cc.regime, outer, slip, cc.beltStages, share);
+  // A calibrated part's nominal already holds its usual creep: the likely deviation is about 0.
+  const likely = likelyDeviation(role, cc.regime, outer, slip ?? (cc.calibrated ? 0 : undefined), cc.beltStages, share);
   const preferCentre = slip === undefined;
   let relative = { ...relativeWindow(role, cc.regime, outer, slip, cc.beltStages), likely, preferCentre };
   if (carriers[0]) {
@@ -394,7 +397,7 @@ export function rankCapture(drive: DriveDocument, input: RankingInput, options: 
     throw new RangeError('ranking needs an order spectrum with a positive resolution and a floor of the same length');
   }
   const envRes = input.envelopes[0]?.spectrum.resolution ?? input.orders.resolution;
-  const all = candidateLines(drive, { shopTable: options.shopTable, resolution: { orders: input.orders.resolution, envelope: envRes } });
+  const all = candidateLines(drive, { shopTable: options.shopTable, calibration: options.calibration, resolution: { orders: input.orders.resolution, envelope: envRes } });
   // Every part's own shaft line is measured, fixed-ratio ones too.
   const slips = new Map(all.filter((cc) => cc.target === 'component').map((cc) => [cc.component, estimateSlip(cc, input.orders)] as const));
   const shafts = knownShafts(all, slips);

@@ -16,6 +16,7 @@ import { EmptyState } from '../../components/ui/states';
 import { paths } from '../paths';
 import { requireUser } from '../route-guards';
 import { enginePath } from './drive-library';
+import { CalibrationCard } from '../../features/drive-library/components/calibration-card';
 
 function engineIdOf(raw: string | undefined): number | 'new' {
   if (raw === 'new') return 'new';
@@ -91,6 +92,7 @@ function ExistingEngine({ id, canWrite }: { id: number; canWrite: boolean }) {
       <div className="mt-6">
         <EngineHistory id={engine.id} />
       </div>
+      <div className="mt-6"><CalibrationCard engineId={engine.id} canWrite={canWrite} /></div>
     </>
   );
 }
