@@ -17,7 +17,11 @@ import { startJobRunner, type JobRunner } from './jobs/job-runner';
 import { closePool, getPool, runTask } from './pool';
 import { seedDemoCases } from './services/demo-cases';
 import { createStorage } from './storage/create-storage';
+import { sweepStorage } from './storage/sweep';
 import type { AppContext } from './context';
+
+/** How long close() waits for requests in progress before cutting their connections. */
+const SHUTDOWN_GRACE_MS = 10_000;
 
 /** A running server. */
 export interface BootedServer {
@@ -52,6 +56,9 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
   }
   const mailer = createSmtpMailer(mailUrl, env.MAIL_FROM);
   const storage = createStorage(env);
+  // The start-up sweep runs beside the server (a large bucket takes a while); it only logs.
+  void sweepStorage({ sequelize, storage, logger: logger.child({ component: 'sweep' }), graceMs: env.ORPHAN_GRACE_MIN * 60_000 }).catch((error: unknown) =>
+    logger.error('storage sweep failed', { error }));
   if (env.DEMO) {
     const seeded = await seedDemoCases(storage, logger);
     if (seeded > 0) logger.info('seeded the demo cases', { cases: seeded });
@@ -69,6 +76,12 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
   const { server, scheme } = await listenApp(app, env).catch((error: unknown) => {
     throw portError(error, env.PORT, 'PORT');
   });
+  // Requests in progress, so that close() lets them finish before the database pool closes.
+  let inFlight = 0;
+  server.on('request', (_req, res: import('node:http').ServerResponse) => {
+    inFlight += 1;
+    res.once('close', () => (inFlight -= 1));
+  });
   let jobs: JobRunner | null = null;
   if (env.JOBS_IN_PROCESS) {
     jobs = startJobRunner({
@@ -84,10 +97,14 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
     demoCreated,
     mailFakeUrl: fake?.url ?? null,
     async close() {
-      await new Promise<void>((resolve) => {
-        server.close(() => resolve());
-        server.closeAllConnections();
-      });
+      // Stop accepting, let requests in progress finish (at most SHUTDOWN_GRACE_MS), then cut the
+      // rest: a handler must not find the database pool closed under it mid-transaction.
+      const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+      server.closeIdleConnections();
+      const deadline = Date.now() + SHUTDOWN_GRACE_MS;
+      while (inFlight > 0 && Date.now() < deadline) await new Promise((r) => setTimeout(r, 50));
+      server.closeAllConnections();
+      await closed;
       await jobs?.stop();
       await closePool();
       mailer.close();

@@ -58,6 +58,8 @@ export const EnvSchema = z.object({
   JOB_LEASE_S: z.coerce.number().positive().max(3600).default(60),
   /** How often an idle runner looks for queued jobs (ms). */
   JOB_POLL_MS: z.coerce.number().int().min(10).max(60_000).default(500),
+  /** Stored files without a capture row are removed at start-up once older than this (minutes). */
+  ORPHAN_GRACE_MIN: z.coerce.number().min(0).max(10_080).default(60),
   /** PEM certificate (chain) and private key files: when both are set the app serves HTTPS itself (issue 20: recording needs a secure page). */
   TLS_CERT_FILE: z.string().optional(),
   TLS_KEY_FILE: z.string().optional(),

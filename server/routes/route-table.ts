@@ -15,6 +15,7 @@ import { findingRoutes } from './findings';
 import { healthRoutes } from './health';
 import { inviteRoutes } from './invites';
 import { outboxRoutes } from './outbox';
+import { reportRoutes } from './reports';
 import type { RouteRow } from './route-row';
 import { setupRoutes } from './setup';
 import { shopRoutes } from './shop';
@@ -38,4 +39,5 @@ export const routeTable: readonly RouteRow[] = [
   ...captureRoutes,
   ...analysisRoutes,
   ...findingRoutes,
+  ...reportRoutes,
 ];

@@ -76,7 +76,11 @@ export function seriesRows(out: AnalyzeFileOutput, pickupUnit: string): SeriesRo
 
 /** Replaces an analysis's series, one INSERT per series, inside `t`. */
 export async function storeSeries(analysisId: number, rows: SeriesRow[], t: Transaction): Promise<void> {
-  await AnalysisSeries.destroy({ where: { analysisId }, transaction: t });
+  // A first run has nothing to replace; skipping the DELETE avoids its gap lock, on which two
+  // runners storing at once would deadlock.
+  if ((await AnalysisSeries.count({ where: { analysisId }, transaction: t })) > 0) {
+    await AnalysisSeries.destroy({ where: { analysisId }, transaction: t });
+  }
   for (const r of rows) {
     if (r.data.byteLength > MAX_SERIES_BYTES) throw new RangeError(`series ${r.name} is ${r.data.byteLength} bytes, over the 4 MiB cap`);
     await AnalysisSeries.create({ analysisId, name: r.name, band: r.band, meta: r.meta, data: r.data }, { transaction: t });

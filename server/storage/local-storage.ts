@@ -1,7 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { createReadStream, createWriteStream } from 'node:fs';
-import { mkdir, rename, rm, stat } from 'node:fs/promises';
-import { dirname, join } from 'node:path';
+import { mkdir, readdir, rename, rm, stat } from 'node:fs/promises';
+import { dirname, join, relative, sep } from 'node:path';
 import type { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import { checkKey, missingObject, type LocalFile, type ObjectStorage } from './storage';
@@ -41,6 +41,25 @@ export function createLocalStorage(root: string): ObjectStorage {
       await rm(pathOf(key), { force: true });
     },
     exists: (key) => exists(pathOf(key)),
+    async *list() {
+      let entries;
+      try {
+        entries = await readdir(root, { recursive: true, withFileTypes: true });
+      } catch (error) {
+        if ((error as NodeJS.ErrnoException).code === 'ENOENT') return;
+        throw error;
+      }
+      for (const e of entries) {
+        if (!e.isFile()) continue;
+        const path = join(e.parentPath, e.name);
+        const key = relative(root, path).split(sep).join('/');
+        try {
+          yield { key, modifiedAt: (await stat(path)).mtime };
+        } catch {
+          /* removed meanwhile */
+        }
+      }
+    },
   };
 }
 

@@ -5,7 +5,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
-import { DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import { DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
 import { Upload } from '@aws-sdk/lib-storage';
 import { checkKey, missingObject, type LocalFile, type ObjectStorage } from './storage';
 
@@ -78,6 +78,17 @@ export function createS3Storage(options: S3StorageOptions): ObjectStorage {
     },
     async delete(key) {
       await client.send(new DeleteObjectCommand({ Bucket, Key: keyOf(key) }));
+    },
+    async *list() {
+      const prefix = options.prefix ?? '';
+      let ContinuationToken: string | undefined;
+      do {
+        const page = await client.send(new ListObjectsV2Command({ Bucket, Prefix: `${prefix}shops/`, ContinuationToken }));
+        for (const o of page.Contents ?? []) {
+          if (o.Key) yield { key: o.Key.slice(prefix.length), modifiedAt: o.LastModified ?? new Date(0) };
+        }
+        ContinuationToken = page.IsTruncated ? page.NextContinuationToken : undefined;
+      } while (ContinuationToken);
     },
     async exists(key) {
       try {

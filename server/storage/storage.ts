@@ -27,6 +27,17 @@ export interface ObjectStorage {
   /** Removes an object; missing is not an error. */
   delete(key: string): Promise<void>;
   exists(key: string): Promise<boolean>;
+  /**
+   * Every stored object (and, for the local driver, every unfinished `.part` file) with its last
+   * change, for the start-up sweep and backups. Optional so test doubles need not implement it.
+   */
+  list?(): AsyncIterable<StoredObject>;
+}
+
+/** One entry of {@link ObjectStorage.list}. */
+export interface StoredObject {
+  key: string;
+  modifiedAt: Date;
 }
 
 /** Keys the drivers accept: lower-case letters, digits, '-', '_', '.', '/' segments; no '..'. */

@@ -115,6 +115,11 @@ export interface RankingEntry {
   indistinguishableFrom: string[];
   approximate: boolean;
   matched: MatchedLine[];
+  /**
+   * The named terms the score is the product of (shared/ranking/score-terms.ts); the evidence
+   * names exactly those that moved it. Absent on entries made before the terms existed.
+   */
+  terms?: { name: string; factor: number; reason: string }[];
 }
 
 /** What was read: rate, duration and channel count (plus names and units where the file gave them). */

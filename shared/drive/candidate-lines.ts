@@ -79,7 +79,10 @@ export function windowOf(
 }
 
 interface LineSeed { label: string; fault: Fault; harmonic: number; sideband: number; nominalOrder: number; role: LineRole;
-  spectrum: 'orders' | 'envelope'; carrierHarmonic?: number; modulatorOrder?: number }
+  spectrum: 'orders' | 'envelope'; carrierHarmonic?: number; modulatorOrder?: number; optional?: boolean }
+
+/** Odd multiples of BSF a ball fault may show beside the 2×BSF series. */
+const BALL_ODD_MULTIPLES = [1, 3, 5];
 
 function componentSeeds(ratio: number, f: BearingFactors, ring: RotatingRing, harmonics: number): LineSeed[] {
   const seeds: LineSeed[] = [];
@@ -96,6 +99,14 @@ function componentSeeds(ratio: number, f: BearingFactors, ring: RotatingRing, ha
   for (const d of defects) {
     for (let k = 1; k <= harmonics; k += 1) {
       seeds.push({ label: `${d.name} ${k}x`, fault: d.fault, harmonic: k, sideband: 0, nominalOrder: k * ratio * d.factor, role: d.role, spectrum: 'envelope' });
+    }
+    // A ball that strikes one race harder than the other (or only one) shows BSF and its odd
+    // multiples as well as the 2×BSF series (docs/references.md §1; W. A. Smith and R. B. Randall 2015
+    // on real ball faults); they count when found and are never missed.
+    if (d.fault === 'ball') {
+      for (const k of BALL_ODD_MULTIPLES.filter((m) => m < 2 * harmonics)) {
+        seeds.push({ label: `BSF ${k}x`, fault: 'ball', harmonic: k / 2, sideband: 0, nominalOrder: k * ratio * f.bsf, role: 'fixed', spectrum: 'envelope', optional: true });
+      }
     }
     // Sidebands (docs/references.md §1): the turning race's defect is modulated at the shaft (ring) speed;
     // a ball defect at the cage speed. A fixed race's defect carries none.

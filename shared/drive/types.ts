@@ -83,6 +83,12 @@ export interface CandidateLine {
   /** For a sideband: the harmonic of the carrier it flanks and the modulating order's nominal value. */
   carrierHarmonic?: number;
   modulatorOrder?: number;
+  /**
+   * A carrier of a second reading only: a ball fault's BSF 1×, 3×, 5× (the ball strikes one race
+   * harder, or only one; `harmonic` is then 0.5, 1.5, 2.5 of the 2×BSF line), read together with
+   * the 2×BSF series as the whole BSF comb, beside the 2×BSF series alone.
+   */
+  optional?: boolean;
 }
 
 export interface ComponentCandidates {

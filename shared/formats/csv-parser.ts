@@ -20,6 +20,24 @@ export interface CsvParserOptions {
 }
 
 const LAYOUT_LINES = 400;
+/** Fields a line of the layout sample may have: far above any scope or logger export, far below what makes layout detection slow. */
+const MAX_FIELDS = 1024;
+/** Channel columns read at most (8 is the WAV limit; loggers export a few dozen at most). */
+const MAX_CHANNELS = 64;
+
+/** How many fields `line` would split into with the commonest separator (`,` `;` tab), counted without splitting. */
+function widestFieldCount(line: string): number {
+  let comma = 0;
+  let semi = 0;
+  let tab = 0;
+  for (let i = 0; i < line.length; i++) {
+    const c = line.charCodeAt(i);
+    if (c === 44) comma++;
+    else if (c === 59) semi++;
+    else if (c === 9) tab++;
+  }
+  return Math.max(comma, semi, tab) + 1;
+}
 /** 9.9E37 and above: the IEEE 488.2 / SCPI "not a number" marker instruments write for over range (from memory). */
 const OVER_RANGE = 9.9e37;
 
@@ -46,10 +64,14 @@ export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
 
   function startData(atEof: boolean) {
     layout = detectCsvLayout(head!, name, options.timeUnit ?? null, atEof);
-    cols = layout.channelNames.map(() => new GrowableFloat32(1 << 16));
-    if (cols.length === 0) {
+    if (layout.channelNames.length === 0) {
       throw new CaptureFormatError('too_few_channels', `${name}: only a time column, no channel columns; export the reference and pickup channels too`);
     }
+    if (layout.channelNames.length > MAX_CHANNELS) {
+      throw new CaptureFormatError('unsupported_encoding',
+        `${name}: ${layout.channelNames.length} channel columns; Crankwise reads up to ${MAX_CHANNELS} — export the time, reference and pickup columns only`);
+    }
+    cols = layout.channelNames.map(() => new GrowableFloat32(1 << 16));
     time = layout.timeColumn !== null ? new GrowableFloat64(1 << 16) : null;
     const lines = head!;
     head = null;
@@ -83,6 +105,16 @@ export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
       const v = parseCell(cell, L.decimalComma);
       if (!(Math.abs(v) < OVER_RANGE)) { if (allEmpty(f)) return; badCell(cell, no, cc[k] + 1); }
       cols[k].push(v);
+    }
+  }
+
+  /** A line of the layout sample with more than MAX_FIELDS fields is refused before layout detection (which is quadratic in width). */
+  function checkWidth(line: string, no: number) {
+    if (line.length < MAX_FIELDS) return;
+    const fields = widestFieldCount(line);
+    if (fields > MAX_FIELDS) {
+      throw new CaptureFormatError('bad_header',
+        `${name}, line ${no}: ${fields} fields; Crankwise reads a time column and up to ${MAX_CHANNELS} channel columns — export the time, reference and pickup columns only`);
     }
   }
 
@@ -124,6 +156,7 @@ export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
       lineNo++;
       if (head) {
         if (head.length === 0) headFirstLineNo = lineNo;
+        checkWidth(line, lineNo);
         head.push(line);
         if (head.length >= LAYOUT_LINES) startData(false);
       } else dataLine(line, lineNo);
@@ -133,7 +166,7 @@ export function createCsvParser(options: CsvParserOptions = {}): CaptureParser {
       lineNo++;
       const line = rest;
       rest = '';
-      if (head) { if (head.length === 0) headFirstLineNo = lineNo; head.push(line); } else dataLine(line, lineNo);
+      if (head) { if (head.length === 0) headFirstLineNo = lineNo; checkWidth(line, lineNo); head.push(line); } else dataLine(line, lineNo);
     }
   }
 

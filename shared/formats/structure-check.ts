@@ -209,6 +209,11 @@ function csvChecker(name: string): StructureChecker {
       const all = head.split(/\r\n|\r|\n/);
       // Without the whole file, the last line may be cut: keep whole lines only.
       const whole = sawEnd && !done ? all : all.slice(0, -1);
+      if (whole.length === 0 && done) {
+        // One line fills the whole head (a header of a million columns): not a capture export.
+        throw new CaptureFormatError('bad_header',
+          `${name}: the first line runs past ${CSV_HEAD_BYTES / 1024} KB without a line end; Crankwise reads a time column and up to 64 channel columns — export the time, reference and pickup columns only`);
+      }
       const layout = detectCsvLayout(whole.filter((l, i) => i < CSV_HEAD_LINES), name, null, sawEnd && !done);
       if (sawEnd && !done) parser.end();
       return { format: 'csv', channels: layout.channelColumns.length, sampleRateHz: null, durationS: null };

@@ -29,6 +29,9 @@ type State =
   | { kind: 'data'; remaining: number; declared: number }
   | { kind: 'done' };
 
+/** Frames per channel allocated before the samples arrive (8 MiB per channel as float32); more grows by doubling. */
+const PREALLOCATE_FRAMES = 1 << 21;
+
 /** Creates a WAV chunk parser; `name` appears in error messages (e.g. the file name). */
 export function createWavParser(name = 'WAV file'): CaptureParser {
   let pending: Uint8Array = new Uint8Array(0);
@@ -36,6 +39,8 @@ export function createWavParser(name = 'WAV file'): CaptureParser {
   let format: WavFormat | null = null;
   let channels: Float32Array[] = [];
   let frames = 0;
+  /** Frames the data chunk's header announces (Infinity when it does not say). */
+  let declaredFrames = Infinity;
   let sawData = false;
   const notes: string[] = [];
 
@@ -91,6 +96,23 @@ export function createWavParser(name = 'WAV file'): CaptureParser {
       frames += nFrames;
       return;
     }
+    if (f.bits === 32 && f.encoding === 'float') {
+      // Fast path: a Float32Array view over the chunk (copied once when the chunk is not 4-byte
+      // aligned; a Node Buffer's slice is a view, hence the explicit copy), de-interleaved per
+      // channel; about twice as fast as a DataView per sample.
+      if (frames + nFrames > channels[0].length) growChannels(frames + nFrames);
+      const start = b.byteOffset + offset;
+      const bytes = nFrames * nch * 4;
+      const v32 = start % 4 === 0 ? new Float32Array(b.buffer, start, nFrames * nch) : new Float32Array(new Uint8Array(b.subarray(offset, offset + bytes)).buffer);
+      for (let c = 0; c < nch; c++) {
+        const bad = deinterleaveFloat32(v32, channels[c], frames, nFrames, nch, c);
+        if (bad >= 0) {
+          throw new CaptureFormatError('non_finite', `${name}: sample ${frames + bad + 1} of channel ${c + 1} is NaN or infinite; the recording is damaged — record or export it again`);
+        }
+      }
+      frames += nFrames;
+      return;
+    }
     const v = new DataView(b.buffer, b.byteOffset + offset, nFrames * f.blockAlign);
     let p = 0;
     const base = frames;
@@ -125,7 +147,7 @@ export function createWavParser(name = 'WAV file'): CaptureParser {
   }
 
   function growChannels(minLength: number) {
-    const len = Math.max(minLength, channels[0].length * 2, 1024);
+    const len = Math.max(minLength, Math.min(Math.max(channels[0].length * 2, 1024), declaredFrames));
     channels = channels.map((ch) => { const n = new Float32Array(len); n.set(ch); return n; });
   }
 
@@ -154,7 +176,11 @@ export function createWavParser(name = 'WAV file'): CaptureParser {
           sawData = true;
           const declared = size === 0xffffffff || size === 0 ? Infinity : size;
           if (Number.isFinite(declared)) {
-            const n = Math.floor(declared / format.blockAlign);
+            // The header's length is a claim, not bytes in hand: allocate at most PREALLOCATE_FRAMES
+            // up front and grow (up to the claim) as data arrives, so a header announcing 2^31
+            // samples costs nothing until the samples exist (it then ends as `truncated`).
+            declaredFrames = Math.floor(declared / format.blockAlign);
+            const n = Math.min(declaredFrames, PREALLOCATE_FRAMES);
             channels = Array.from({ length: format.channels }, () => new Float32Array(n));
           } else {
             channels = Array.from({ length: format.channels }, () => new Float32Array(1 << 16));
@@ -234,4 +260,20 @@ export function createWavParser(name = 'WAV file'): CaptureParser {
       };
     },
   };
+}
+
+/**
+ * Copies channel `c` of `n` interleaved float32 frames into `out` from index `at`; returns the
+ * frame index of the first NaN or infinite sample, or −1 (x − x is NaN exactly for those).
+ */
+function deinterleaveFloat32(v: Float32Array, out: Float32Array, at: number, n: number, nch: number, c: number): number {
+  let bad = 0;
+  for (let i = 0, j = c; i < n; i++, j += nch) {
+    const s = v[j];
+    bad += s - s;
+    out[at + i] = s;
+  }
+  if (bad === 0) return -1;
+  for (let i = 0, j = c; i < n; i++, j += nch) if (!Number.isFinite(v[j])) return i;
+  return -1;
 }

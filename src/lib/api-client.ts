@@ -91,6 +91,28 @@ async function getCsrfToken(): Promise<string> {
   return csrfPending;
 }
 
+/** The CSRF token for a request the helpers below cannot send (a multipart upload with progress). */
+export function currentCsrfToken(): Promise<string> {
+  return getCsrfToken();
+}
+
+/** The ApiError of a non-2xx answer whose body was read as text (used by XHR uploads). */
+export function apiErrorFrom(status: number, statusText: string, text: string): ApiError {
+  let parsed: { error?: { code?: unknown; message?: unknown; details?: unknown } } | undefined;
+  try {
+    parsed = text ? JSON.parse(text) : undefined;
+  } catch {
+    parsed = undefined;
+  }
+  const error = parsed?.error;
+  return new ApiError(
+    status,
+    typeof error?.code === 'string' ? error.code : `http_${status}`,
+    typeof error?.message === 'string' ? error.message : `The server answered ${status} ${statusText}.`.trim(),
+    error?.details,
+  );
+}
+
 type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 
 interface RequestOptions {

@@ -21,6 +21,7 @@ import { migration as createCaptures } from './202612030802-create-captures';
 import { migration as createAnalyses } from './202612030803-create-analyses';
 import { migration as createAnalysisSeries } from './202612030804-create-analysis-series';
 import { migration as createFindings } from './202612030805-create-findings';
+import { migration as addMailAttachments } from './202612030900-add-mail-attachments';
 import { migration as createRatioCalibrations } from './202612030900-create-ratio-calibrations';
 
 /** The ordered list umzug runs. */
@@ -45,5 +46,6 @@ export const migrations: MigrationModule[] = [
   createAnalyses,
   createAnalysisSeries,
   createFindings,
+  addMailAttachments,
   createRatioCalibrations,
 ];

@@ -95,7 +95,7 @@ export function AppLayout() {
   useEffect(() => setMenuOpen(false), [pathname]);
   return (
     <div className="flex min-h-screen flex-col md:flex-row">
-      <aside className="shrink-0 border-b border-border bg-sidebar md:w-60 md:border-r md:border-b-0">
+      <aside className="shrink-0 print:hidden border-b border-border bg-sidebar md:w-60 md:border-r md:border-b-0">
         <div className="flex flex-col gap-3 px-3 py-3 md:sticky md:top-0 md:h-screen md:gap-5 md:py-4">
           <div className="flex items-start justify-between gap-3 px-2">
             <div className="min-w-0">
@@ -133,7 +133,7 @@ export function AppLayout() {
           </Suspense>
         </main>
         {showsFullSafetyNote ? null : (
-          <footer className="mx-auto w-full max-w-6xl px-4 pb-6 sm:px-8">
+          <footer className="mx-auto w-full max-w-6xl px-4 pb-6 sm:px-8 print:hidden">
             <SafetyNote compact />
           </footer>
         )}
