@@ -7,7 +7,7 @@ import { DEMO_I4 } from '../../../../server/db/seeders/demo-engines';
 import { makeUser } from '../../helpers/factories';
 import { server } from '../../helpers/msw-server';
 import { renderApp } from '../../helpers/render-app';
-import { BEARINGS, engineDto } from './fixtures';
+import { BEARINGS, SETTINGS, engineDto } from './fixtures';
 
 const measured = (correctionPct: number, offered: boolean, name: string) => ({
   correctionPct, scatterPct: 0.4, standardErrorPct: 0.2, captures: offered ? 4 : 2, cases: offered ? 4 : 2, offered,
@@ -20,6 +20,8 @@ function fake(initial: CalibrationDto) {
   server.use(
     http.get('*/api/engines/41', () => HttpResponse.json({ engine: engineDto(DEMO_I4) })),
     http.get('*/api/bearings', () => HttpResponse.json({ items: BEARINGS })),
+    http.get('*/api/shop/settings', () => HttpResponse.json({ settings: SETTINGS })),
+    http.get('*/api/engines/41/history', () => HttpResponse.json({ items: [] })),
     http.get('*/api/engines/41/calibration', () => HttpResponse.json(current)),
     http.put('*/api/engines/41/calibration', async ({ request }) => {
       const body = (await request.json()) as CalibrationDecision;
