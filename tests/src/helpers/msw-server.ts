@@ -5,6 +5,11 @@ import { setupServer } from 'msw/node';
 export const server = setupServer(
   http.get('*/api/csrf', () => HttpResponse.json({ token: 'csrf-test-token' })),
   // The engine page's Calibration card (issue 20) asks for this; by default nothing is measured yet.
+  // The Cases page is the landing page of every role; by default the shop has no cases.
+  http.get('*/api/cases', ({ request }) => {
+    const url = new URL(request.url);
+    return HttpResponse.json({ items: [], total: 0, page: Number(url.searchParams.get('page') ?? 1), pageSize: Number(url.searchParams.get('pageSize') ?? 20) });
+  }),
   http.get('*/api/engines/:id/calibration', ({ params }) => HttpResponse.json({ engineId: Number(params.id), minCaptures: 4, parts: [] })),
 );
 

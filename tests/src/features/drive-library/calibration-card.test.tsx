@@ -45,7 +45,7 @@ describe('Calibration card on the engine page', { timeout: 30_000 }, () => {
   it('shows each part\'s sentence and lets a lead accept an offered correction', async () => {
     const puts = fake(DTO);
     renderApp('/drive-library/41', { user: makeUser({ role: 'lead' }) });
-    const list = await screen.findByRole('list', { name: 'Ratio corrections' }, { timeout: 5000 });
+    const list = await screen.findByRole('list', { name: 'Ratio corrections' }, { timeout: 15_000 });
     expect(within(list).getByText('measured on 4 cases: Alternator turns 1.6 % slower than its nominal ratio ± 0.4 %')).toBeTruthy();
     // Not enough captures: the button is there but disabled.
     expect((within(list).getByRole('button', { name: 'Accept −1.2 %' }) as HTMLButtonElement).disabled).toBe(true);
@@ -58,13 +58,13 @@ describe('Calibration card on the engine page', { timeout: 30_000 }, () => {
   it('is read-only for a technician', async () => {
     fake(DTO);
     renderApp('/drive-library/41', { user: makeUser({ role: 'tech' }) });
-    const list = await screen.findByRole('list', { name: 'Ratio corrections' }, { timeout: 5000 });
+    const list = await screen.findByRole('list', { name: 'Ratio corrections' }, { timeout: 15_000 });
     expect(within(list).queryByRole('button')).toBeNull();
   });
 
   it('says what is needed when nothing was measured yet', async () => {
     fake({ engineId: 41, minCaptures: 4, parts: [] });
     renderApp('/drive-library/41', { user: makeUser({ role: 'lead' }) });
-    expect(await screen.findByText(/Corrections appear once 4 captures on two cases/, {}, { timeout: 5000 })).toBeTruthy();
+    expect(await screen.findByText(/Corrections appear once 4 captures on two cases/, {}, { timeout: 15_000 })).toBeTruthy();
   });
 });
