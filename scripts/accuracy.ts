@@ -10,10 +10,21 @@
  * first ≥ 90 %, part in the top three in all runs, indistinguishable pairs both in the top two
  * naming each other) and the pipeline against our pipeline checks (table of shared/synth/sweep.ts).
  *
- * Flags: --seeds N (default 20), --only TEXT (cases whose name contains it), --no-pipeline-table.
+ * Flags: --seeds N (default 20), --only TEXT (cases whose name contains it), --no-pipeline-table,
+ * --generator today|real (the generator's `realism`: today's settings, or closer to real engines,
+ * shared/synth/realism.ts; default today).
+ * With --data DIR it scores real recordings instead (scripts/real-recordings.ts): DIR holds WAVs
+ * and a truth file in the open-data kit's cwru-dev format (DIR/truth.json, or --truth FILE), read
+ * with the drive document --drive FILE (default DIR's *.drive.json, else the checkout's test-rig
+ * document); it prints part + fault first by fault kind.
  * A report, not a test: it prints tables and exits 0 unless the arguments are bad.
  */
 import { parseArgs } from 'node:util';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { parseDriveDocument } from '../shared/schemas/drive';
+import { readTruth, scoreRecording, summarise, type RecordingVerdict } from './real-recordings';
 import { runPipeline } from '../shared/analysis/pipeline';
 import { AnalysisSettingsSchema } from '../shared/schemas/analysis-settings';
 import { rankCapture } from '../shared/ranking/rank-capture';
@@ -35,15 +46,25 @@ interface Case {
   indistinguishableFrom: string[];
 }
 
-function parse(): { seeds: number; only: string | null; pipelineTable: boolean } {
+interface Args { seeds: number; only: string | null; pipelineTable: boolean; data: string | null; truth: string | null; drive: string | null; realism: 'today' | 'real' }
+
+function parse(): Args {
   try {
     const { values } = parseArgs({
-      options: { seeds: { type: 'string', default: '20' }, only: { type: 'string' }, 'no-pipeline-table': { type: 'boolean', default: false } },
+      options: {
+        seeds: { type: 'string', default: '20' }, only: { type: 'string' }, 'no-pipeline-table': { type: 'boolean', default: false },
+        data: { type: 'string' }, truth: { type: 'string' }, drive: { type: 'string' }, generator: { type: 'string', default: 'today' },
+      },
       allowPositionals: false,
     });
     const seeds = Number(values.seeds);
     if (!Number.isInteger(seeds) || seeds < 1 || seeds > 1000) throw new Error(`--seeds must be a whole number from 1 to 1000, got ${values.seeds}`);
-    return { seeds, only: values.only ?? null, pipelineTable: !values['no-pipeline-table'] };
+    if (values.generator !== 'today' && values.generator !== 'real') throw new Error(`--generator must be today or real, got ${values.generator}`);
+    if (values.data !== undefined && !existsSync(values.data)) throw new Error(`--data ${values.data}: no such folder; give the folder holding the recordings and their truth.json`);
+    return {
+      seeds, only: values.only ?? null, pipelineTable: !values['no-pipeline-table'],
+      data: values.data ?? null, truth: values.truth ?? null, drive: values.drive ?? null, realism: values.generator,
+    };
   } catch (error) {
     process.stderr.write(`accuracy: ${(error as Error).message}\n`);
     process.exit(2);
@@ -72,8 +93,41 @@ function allCases(): Case[] {
 
 const pct = (n: number, d: number): string => (d === 0 ? '—' : `${((100 * n) / d).toFixed(0)} %`);
 
-function main(): void {
+/** The checkout's drive document of the bearing test rig (the open-data kit's test-rig.drive.json). */
+const TEST_RIG_DRIVE = fileURLToPath(new URL('../tests/shared/drive/fixtures/test-rig.drive.json', import.meta.url));
+
+async function scoreData(args: Args): Promise<void> {
+  const dir = args.data!;
+  const truthPath = args.truth ?? join(dir, 'truth.json');
+  const drivePath = args.drive ?? readdirSync(dir).filter((f) => f.endsWith('.drive.json')).map((f) => join(dir, f))[0] ?? TEST_RIG_DRIVE;
+  let rows;
+  let drive;
+  try {
+    rows = readTruth(truthPath);
+    drive = parseDriveDocument(JSON.parse(readFileSync(drivePath, 'utf8')));
+  } catch (e) {
+    process.stderr.write(`accuracy: ${(e as Error).message}\n`);
+    process.exit(2);
+  }
+  const verdicts: RecordingVerdict[] = [];
+  const t0 = performance.now();
+  for (const row of rows) {
+    const v = await scoreRecording(dir, row, drive);
+    verdicts.push(v);
+    const expected = v.kind === 'healthy' ? 'healthy' : `${row.component} / ${row.fault}`;
+    const top = v.ranking.slice(0, 3).map((e) => `${e.component} / ${e.fault} ${e.score.toFixed(2)}`).join('; ');
+    process.stdout.write(`${v.ok ? 'ok  ' : 'MISS'} ${row.file}: ${expected}; first ${top}\n`);
+  }
+  process.stdout.write(`\nReal recordings (${rows.length} from ${truthPath}, drive ${drivePath})\n\n${summarise(verdicts).join('\n')}\n`);
+  process.stdout.write(`\n${rows.length} recordings in ${((performance.now() - t0) / 1000).toFixed(0)} s\n`);
+}
+
+async function main(): Promise<void> {
   const args = parse();
+  if (args.data) {
+    await scoreData(args);
+    return;
+  }
   const cases = allCases().filter((c) => !args.only || c.name.includes(args.only));
   if (cases.length === 0) {
     process.stderr.write(`accuracy: no case name contains "${args.only}"\n`);
@@ -86,7 +140,7 @@ function main(): void {
     const verdicts: RankingVerdict[] = [];
     let planted = '';
     for (let seed = 1; seed <= args.seeds; seed += 1) {
-      const capture = generateCapture({ ...c.options, drive: c.drive, seed });
+      const capture = generateCapture({ ...c.options, drive: c.drive, seed, realism: args.realism });
       const fault = capture.truth.fault!;
       planted = `${fault.component} / ${fault.fault}`;
       const settings = AnalysisSettingsSchema.parse(settingsFromTruth(capture.truth));
@@ -118,11 +172,11 @@ function main(): void {
   const pairsOk = pairs.filter((v) => v.pairNamed).length;
   lines.push(`all | | ${n} | ${pct(top1, n)} | ${pct(top1f, n)} | ${pct(top3, n)} | ${pairs.length === 0 ? '—' : pct(pairsOk, pairs.length)}`);
   const verdict = (ok: boolean) => (ok ? 'met' : 'MISSED');
-  process.stdout.write(`\nRanking accuracy (${args.seeds} seeds per case; our targets)\n\n${lines.join('\n')}\n\n`);
+  process.stdout.write(`\nRanking accuracy (${args.seeds} seeds per case, generator ${args.realism}; our targets)\n\n${lines.join('\n')}\n\n`);
   process.stdout.write(`planted part first ${pct(top1, n)} (target ≥ 95 %: ${verdict(top1 / n >= 0.95)}); part and fault first ${pct(top1f, n)} (target ≥ 90 %: ${verdict(top1f / n >= 0.9)}); `
     + `part in the top three ${pct(top3, n)} (target 100 %: ${verdict(top3 === n)}); pairs named ${pairs.length === 0 ? '—' : pct(pairsOk, pairs.length)} (target 100 %: ${verdict(pairsOk === pairs.length)})\n`);
   if (args.pipelineTable) process.stdout.write(`\nPipeline accuracy on the same runs (our pipeline checks)\n\n${formatSweepTable(sweepRows)}\n`);
   process.stdout.write(`\n${n} runs in ${((performance.now() - t0) / 1000).toFixed(0)} s\n`);
 }
 
-main();
+void main();

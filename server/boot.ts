@@ -1,6 +1,5 @@
 // Boots a full server process: database connection, migrations, demo shop, mail, HTTP listener.
 // Shared by server/index.ts (DATABASE_URL given) and scripts/start.ts (starts its own MariaDB first).
-import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { join } from 'node:path';
 import { createApp } from './app';
@@ -13,6 +12,7 @@ import { createSmtpMailer } from './mail/mailer';
 import { projectRoot } from './paths';
 import { removeDemoShop, seedDemoShop } from './services/demo-shop';
 import { resolveSessionSecret } from './session-secret';
+import { listenApp } from './tls';
 import { startJobRunner, type JobRunner } from './jobs/job-runner';
 import { closePool, getPool, runTask } from './pool';
 import { seedDemoCases } from './services/demo-cases';
@@ -72,9 +72,9 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
     sessionSecret: resolveSessionSecret(env.SESSION_SECRET),
     clientDir: env.CLIENT_DIR ?? join(projectRoot(), 'dist', 'client'),
   });
-  const server: Server = await new Promise((resolve, reject) => {
-    const s = app.listen(env.PORT, env.HOST, () => resolve(s));
-    s.once('error', (error) => reject(portError(error, env.PORT, 'PORT')));
+  // HTTPS when TLS_CERT_FILE / TLS_KEY_FILE are set (recording in the browser needs a secure page).
+  const { server, scheme } = await listenApp(app, env).catch((error: unknown) => {
+    throw portError(error, env.PORT, 'PORT');
   });
   // Requests in progress, so that close() lets them finish before the database pool closes.
   let inFlight = 0;
@@ -91,7 +91,7 @@ export async function bootServer(env: Env, databaseUrl: string, logger: Logger):
     (app.locals.ctx as AppContext).jobs = jobs;
   }
   const { port } = server.address() as AddressInfo;
-  const url = `http://${env.HOST}:${port}`;
+  const url = `${scheme}://${env.HOST}:${port}`;
   return {
     url,
     demoCreated,

@@ -60,7 +60,13 @@ export const EnvSchema = z.object({
   JOB_POLL_MS: z.coerce.number().int().min(10).max(60_000).default(500),
   /** Stored files without a capture row are removed at start-up once older than this (minutes). */
   ORPHAN_GRACE_MIN: z.coerce.number().min(0).max(10_080).default(60),
+  /** PEM certificate (chain) and private key files: when both are set the app serves HTTPS itself (issue 20: recording needs a secure page). */
+  TLS_CERT_FILE: z.string().optional(),
+  TLS_KEY_FILE: z.string().optional(),
 }).superRefine((e, ctx) => {
+  if ((e.TLS_CERT_FILE === undefined) !== (e.TLS_KEY_FILE === undefined)) {
+    ctx.addIssue({ code: 'custom', path: [e.TLS_CERT_FILE === undefined ? 'TLS_CERT_FILE' : 'TLS_KEY_FILE'], message: 'set TLS_CERT_FILE and TLS_KEY_FILE together (the certificate and its private key), or neither' });
+  }
   if (e.STORAGE === 's3') {
     for (const k of ['S3_BUCKET', 'S3_ACCESS_KEY_ID', 'S3_SECRET_ACCESS_KEY'] as const) {
       if (!e[k]) ctx.addIssue({ code: 'custom', path: [k], message: 'required when STORAGE=s3' });
@@ -85,14 +91,15 @@ export function parseEnv(source: NodeJS.ProcessEnv = process.env): Env {
   return result.data;
 }
 
-/** Whether cookies must be Secure: behind a proxy (TRUST_PROXY) or when the public URL is https. */
+/** Whether cookies must be Secure: behind a proxy (TRUST_PROXY), when the public URL is https, or when serving TLS directly. */
 export function cookiesSecure(env: Env): boolean {
-  return (env.TRUST_PROXY !== undefined && env.TRUST_PROXY !== 'false') || (env.PUBLIC_URL?.startsWith('https:') ?? false);
+  return (env.TRUST_PROXY !== undefined && env.TRUST_PROXY !== 'false') || (env.PUBLIC_URL?.startsWith('https:') ?? false)
+    || env.TLS_CERT_FILE !== undefined;
 }
 
 /** The base URL for links in e-mails. */
 export function publicUrl(env: Env): string {
-  return (env.PUBLIC_URL ?? `http://${env.HOST}:${env.PORT}`).replace(/\/$/, '');
+  return (env.PUBLIC_URL ?? `${env.TLS_CERT_FILE ? 'https' : 'http'}://${env.HOST}:${env.PORT}`).replace(/\/$/, '');
 }
 
 /**

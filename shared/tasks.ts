@@ -41,6 +41,8 @@ export interface AnalysisSeries {
   spectrogram: { frames: number; bins: number; binWidthHz: number; hopS: number; startS: number; amplitude: Float32Array; rpm: Float32Array };
   rpm: { timeS: Float32Array; rpm: Float32Array };
   cycle: { averageDeg: Float32Array; rmsDeg: Float32Array };
+  /** Order map of a speed sweep (issue 20 item 5: order tracks), when the speed spanned ≥ 1.2×. */
+  orderMap?: { resolution: number; bins: number; rows: number; rpm: Float32Array; amplitude: Float32Array };
 }
 
 export interface AnalyzeFileOutput {

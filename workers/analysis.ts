@@ -59,6 +59,7 @@ const handlers = {
           spectrogram: { frames: sg.frames, bins: sg.bins, binWidthHz: sg.binWidthHz, hopS: sg.hopS, startS: sg.startS, amplitude: sg.amplitude, rpm: sg.rpm },
           rpm: { timeS: result.speed.trace.timeS, rpm: result.speed.trace.rpm },
           cycle: { averageDeg: result.cycle.averageDeg ?? new Float32Array(720), rmsDeg: result.cycle.rmsDeg ?? new Float32Array(720) },
+          ...(result.orderMap ? { orderMap: result.orderMap } : {}),
         },
       };
       return Piscina.move(movable(out) as unknown as Parameters<typeof Piscina.move>[0]) as unknown as AnalyzeFileOutput;
@@ -108,7 +109,8 @@ function checkNotFlat(channel: Float32Array | undefined, number: number, name: s
 function movable(out: AnalyzeFileOutput) {
   const s = out.series;
   const arrays = [s.orders.amplitude, s.orders.floor, ...s.envelopes.flatMap((e) => [e.amplitude, e.floor]),
-    s.spectrogram.amplitude, s.spectrogram.rpm, s.rpm.timeS, s.rpm.rpm, s.cycle.averageDeg, s.cycle.rmsDeg];
+    s.spectrogram.amplitude, s.spectrogram.rpm, s.rpm.timeS, s.rpm.rpm, s.cycle.averageDeg, s.cycle.rmsDeg,
+    ...(s.orderMap ? [s.orderMap.rpm, s.orderMap.amplitude] : [])];
   const buffers = [...new Set(arrays.map((a) => a.buffer as ArrayBuffer))];
   return { [Piscina.transferableSymbol]: buffers, [Piscina.valueSymbol]: out };
 }

@@ -24,7 +24,9 @@ export function createPassport(bcryptRounds: number): passportModule.Authenticat
       User.findOne({ where: { email: email.trim().toLowerCase() }, include: [{ model: Shop, as: 'shop' }] })
         .then(async (user) => {
           const ok = await verifyPassword(password, user?.passwordHash ?? null, bcryptRounds);
-          if (!user || !ok || !user.active) return done(null, false);
+          if (!user || !ok) return done(null, false);
+          // Only someone who knows the password learns that the account is deactivated.
+          if (!user.active) return done(null, false, { message: 'deactivated' });
           return done(null, user as SessionUser);
         })
         .catch(done);

@@ -20,6 +20,7 @@ export const FLAG_OF_FIELD: Record<string, string> = {
   cylinders: '--cylinders', firingOrder: '--firing-order', maxOrder: '--max-order', samplesPerRev: '--samples-per-rev',
   revsPerBlock: '--revs-per-block', envelopeBand: '--envelope-band', envelopeMaxHz: '--envelope-max-hz', timeUnit: '--time-unit',
   channelScales: '--channel-scales', minRpm: '--min-rpm', maxRpm: '--max-rpm',
+  speedSource: '--speed-source', expectedRpm: '--expected-rpm',
 };
 
 export interface AnalyzeArgs {
@@ -33,7 +34,8 @@ export const USAGE = `usage: npm run --silent analyze -- <capture.wav|.csv> [--d
   [--cam-channel 3] [--ref-kind cyl1|per-rev|per-cylinder|wheel] [--ref-per-cycle N] [--wheel 60-2]
   [--ref-polarity rising|falling|auto] [--tdc-offset-deg 0] [--cylinders 4] [--firing-order 1-3-4-2]
   [--max-order 100] [--samples-per-rev 256] [--revs-per-block 32] [--envelope-band auto|LO-HI]
-  [--envelope-max-hz 9000] [--time-unit s|ms|us] [--channel-scales 1,1] [--min-rpm 300] [--max-rpm 8000] [--json]`;
+  [--envelope-max-hz 9000] [--time-unit s|ms|us] [--channel-scales 1,1] [--min-rpm 300] [--max-rpm 8000]
+  [--speed-source reference|pickup] [--expected-rpm 800] [--json]`;
 
 function num(flag: string, v: string): number {
   const x = Number(v);
@@ -85,7 +87,7 @@ export function parseAnalyzeArgs(argv: string[]): AnalyzeArgs {
         'ref-channel': str, 'pickup-channel': str, 'cam-channel': str, 'ref-kind': str, 'ref-per-cycle': str, wheel: str,
         'ref-polarity': str, 'tdc-offset-deg': str, cylinders: str, 'firing-order': str, 'max-order': str,
         'samples-per-rev': str, 'revs-per-block': str, 'envelope-band': str, 'envelope-max-hz': str, 'time-unit': str,
-        'channel-scales': str, 'min-rpm': str, 'max-rpm': str,
+        'channel-scales': str, 'min-rpm': str, 'max-rpm': str, 'speed-source': str, 'expected-rpm': str,
       },
     });
   } catch (e) {
@@ -127,5 +129,7 @@ export function parseAnalyzeArgs(argv: string[]): AnalyzeArgs {
   if (v['channel-scales'] !== undefined) s.channelScales = v['channel-scales'].split(',').map((p) => num('--channel-scales', p));
   if (v['min-rpm'] !== undefined) s.minRpm = num('--min-rpm', v['min-rpm']);
   if (v['max-rpm'] !== undefined) s.maxRpm = num('--max-rpm', v['max-rpm']);
+  if (v['speed-source'] !== undefined) s.speedSource = v['speed-source'] as AnalysisSettingsInput['speedSource'];
+  if (v['expected-rpm'] !== undefined) s.expectedRpm = num('--expected-rpm', v['expected-rpm']);
   return { capture: parsed.positionals[0], drive: v.drive ?? null, json: v.json === true, settings: s };
 }

@@ -10,7 +10,7 @@ import { resolveSettings } from '../../shared/analysis/resolve-settings';
 import { type AnalysisResult, type RankingEntry, type RankingInput } from '../../shared/analysis/types';
 import { type DriveDocument } from '../../shared/drive/types';
 import { FLAG_OF_FIELD, parseAnalyzeArgs, UsageError } from './analyze-args';
-import { formatSummary } from './format-summary';
+import { formatSummary, plainOptionError, type FitsDrive } from './format-summary';
 
 /**
  * `npm run --silent analyze -- <capture> [flags]`: streams the capture through the shared reader,
@@ -31,8 +31,18 @@ async function main(argv: string[]): Promise<number> {
   const rank = drive && rankCapture ? (input: RankingInput): RankingEntry[] => rankCapture(drive!, input) : undefined;
   const result: AnalysisResult = runPipeline(capture, settings, { drive: drive ?? undefined, rank, notes: capture.notes, readMs });
   if (args.json) process.stdout.write(`${JSON.stringify(toAnalyzeJson(result))}\n`);
-  else process.stdout.write(formatSummary(result, basename(args.capture)));
+  else process.stdout.write(formatSummary(result, basename(args.capture), drive ? await fitsDrive(drive, result) : undefined));
   return 0;
+}
+
+/**
+ * Whether a line fits a candidate window of the drive (windows widened by the spectrum's
+ * resolution). Any spectrum counts: a part's shaft line often shows in the envelope too.
+ */
+async function fitsDrive(drive: DriveDocument, result: AnalysisResult): Promise<FitsDrive> {
+  const { candidateLines } = await import('../../shared/drive/candidate-lines');
+  const candidates = candidateLines(drive, { resolution: { orders: result.orders.spectrum.resolution, envelope: result.envelope.resolution } });
+  return (order) => candidates.some((c) => c.lines.some((l) => order >= l.window[0] && order <= l.window[1]));
 }
 
 async function loadDrive(path: string): Promise<DriveDocument> {
@@ -47,7 +57,8 @@ async function loadDrive(path: string): Promise<DriveDocument> {
   } catch (e) {
     if (e instanceof DriveDocumentError && e.issues.length > 0) {
       const first = e.issues[0];
-      throw new UsageError(`drive document ${basename(path)}: ${first.path}: ${first.message}${e.issues.length > 1 ? ` (and ${e.issues.length - 1} more)` : ''}`);
+      const { describeDrivePath } = await import('../../shared/schemas/drive');
+      throw new UsageError(`engine file ${basename(path)}, ${describeDrivePath(first.path, json)}: ${first.message}${e.issues.length > 1 ? ` (and ${e.issues.length - 1} more problem${e.issues.length > 2 ? 's' : ''})` : ''}`);
     }
     throw e;
   }
@@ -65,7 +76,7 @@ export function describeError(e: unknown): { code: number; line: string } {
   if (err && Array.isArray(err.issues) && err.issues.length > 0 && (e as Error).name === 'ZodError') {
     const i = err.issues[0];
     const field = String(i.path[0] ?? '');
-    return { code: 2, line: `${FLAG_OF_FIELD[field] ?? field}: ${i.message}` };
+    return { code: 2, line: plainOptionError(FLAG_OF_FIELD[field] ?? field, i as Parameters<typeof plainOptionError>[1]) };
   }
   return { code: 1, line: `analyze failed: ${(err?.message ?? String(e)).split('\n')[0]}` };
 }

@@ -23,7 +23,7 @@ import { recordAfterRepair } from '../services/case-ranking';
 import { appendTimeline } from '../services/case-timeline';
 import { loadDriveDocument } from '../services/engine-drive';
 import type { ObjectStorage } from '../storage/storage';
-import { affected, renewLease } from './claim';
+import { affected, renewLease, retryOnDeadlock } from './claim';
 
 /** What a job needs from its runner. */
 export interface JobDeps {
@@ -48,7 +48,7 @@ async function setStage(deps: JobDeps, id: number, stage: string, progress: numb
 
 /** Fails the job with a stable code and a message for the technician (guarded by the lease). */
 async function failJob(deps: JobDeps, a: Analysis, caseId: number, name: string, code: string, message: string, extra: Record<string, unknown> = {}): Promise<JobOutcome> {
-  const ok = await deps.sequelize.transaction(async (t) => {
+  const ok = await retryOnDeadlock(() => deps.sequelize.transaction(async (t) => {
     const result = await deps.sequelize.query(
       `UPDATE analyses SET status = 'failed', stage = 'done', progress = 100, errorCode = :code, errorMessage = :message,
          settings = :settings, leaseExpiresAt = NULL, finishedAt = NOW(3), updatedAt = NOW(3)
@@ -58,7 +58,7 @@ async function failJob(deps: JobDeps, a: Analysis, caseId: number, name: string,
     if (affected(result) === 0) return false;
     await appendTimeline({ shopId: a.shopId, caseId, actorId: null, kind: 'analysis_failed', message: `Analysis of ${name} failed: ${message}`, data: { analysisId: a.id, captureId: a.captureId, code } }, t);
     return true;
-  });
+  }));
   return ok ? 'failed' : 'lost';
 }
 
@@ -77,12 +77,15 @@ export async function runClaimedJob(deps: JobDeps, id: number): Promise<JobOutco
   try {
     let drive: DriveDocument | null = null;
     if (c.engineId !== null) {
-      const engine = await Engine.findByPk(c.engineId);
-      if (engine) {
-        const doc = await loadDriveDocument(engine);
+      const engineId = c.engineId;
+      // One transaction: the engine and its drive are read as one snapshot (no torn read).
+      drive = await deps.sequelize.transaction(async (t) => {
+        const engine = await Engine.findByPk(engineId, { transaction: t });
+        if (!engine) return null;
+        const doc = await loadDriveDocument(engine, t);
         delete doc.notes;
-        drive = doc;
-      }
+        return doc;
+      });
     }
     let resolved;
     try {
@@ -125,7 +128,7 @@ export async function runClaimedJob(deps: JobDeps, id: number): Promise<JobOutco
     const pickup = capture.metadata.channels.find((ch) => ch.role === 'pickup');
     const rows = seriesRows(out, pickup?.unit ?? 'V');
     const summary = out.summary as { capture?: { sampleRateHz?: number; durationS?: number; channels?: number }; timingsMs?: Record<string, number> };
-    const stored = await deps.sequelize.transaction(async (t) => {
+    const stored = await retryOnDeadlock(() => deps.sequelize.transaction(async (t) => {
       const result = await deps.sequelize.query(
         `UPDATE analyses SET status = 'done', stage = 'done', progress = 100, errorCode = NULL, errorMessage = NULL,
            settings = :settings, driveSnapshot = :drive, summary = :summary, ranking = :ranking, timingsMs = :timings,
@@ -142,16 +145,18 @@ export async function runClaimedJob(deps: JobDeps, id: number): Promise<JobOutco
       );
       if (affected(result) === 0) return false;
       await storeSeries(id, rows, t);
-      if (summary.capture) {
-        await deps.sequelize.query(
-          `UPDATE captures SET sampleRateHz = :rate, durationS = :dur, channelCount = :ch, updatedAt = NOW(3) WHERE id = :cid`,
-          { replacements: { rate: summary.capture.sampleRateHz ?? null, dur: summary.capture.durationS ?? null, ch: summary.capture.channels ?? null, cid: capture.id }, transaction: t, type: QueryTypes.UPDATE },
-        );
-      }
       await appendTimeline({ shopId: a.shopId, caseId: c.id, actorId: null, kind: 'analysis_done', message: `Analysis of ${capture.originalName} done`, data: { analysisId: id, captureId: capture.id } }, t);
       if (capture.phase === 'after_repair' && capture.currentAnalysisId === id) await recordAfterRepair(capture.id, t);
       return true;
-    });
+    }));
+    if (stored && summary.capture && (capture.sampleRateHz === null || capture.durationS === null)) {
+      // What the reader found (a CSV's fitted rate); outside the transaction: many runs of one
+      // capture must not queue on its row.
+      await deps.sequelize.query(
+        `UPDATE captures SET sampleRateHz = :rate, durationS = :dur, channelCount = :ch, updatedAt = NOW(3) WHERE id = :cid`,
+        { replacements: { rate: summary.capture.sampleRateHz ?? null, dur: summary.capture.durationS ?? null, ch: summary.capture.channels ?? null, cid: capture.id }, type: QueryTypes.UPDATE },
+      );
+    }
     return stored ? 'done' : 'lost';
   } finally {
     clearInterval(beat);

@@ -14,7 +14,7 @@ export const MAX_ATTEMPTS = 3;
 /** Claims one job for `holder` with a lease of `leaseMs`; returns its id, or null when none is claimable. */
 export async function claimJob(sequelize: Sequelize, holder: string, leaseMs: number): Promise<number | null> {
   for (let guard = 0; guard < 20; guard++) {
-    const result = await sequelize.transaction(async (t) => {
+    const result = await retryOnDeadlock(() => sequelize.transaction(async (t) => {
       const rows = await sequelize.query<{ id: number; status: string; attempts: number }>(
         `SELECT id, status, attempts FROM analyses
           WHERE status = 'queued' OR (status = 'running' AND leaseExpiresAt < NOW(3))
@@ -43,7 +43,7 @@ export async function claimJob(sequelize: Sequelize, holder: string, leaseMs: nu
         { replacements: { holder, us: Math.round(leaseMs * 1000), id: row.id }, transaction: t },
       );
       return { kind: 'claimed' as const, id: row.id };
-    });
+    }));
     if (result.kind === 'claimed') return result.id;
     if (result.kind === 'none') return null;
   }
@@ -73,3 +73,20 @@ export function affected(result: unknown): number {
   }
   return 0;
 }
+
+/**
+ * Runs `fn` (a whole transaction) again when MariaDB chose it as a deadlock victim (1213) or a
+ * lock wait timed out (1205): both roll the transaction back whole, so running it again is safe.
+ */
+export async function retryOnDeadlock<T>(fn: () => Promise<T>, tries = 4): Promise<T> {
+  for (let i = 1; ; i++) {
+    try {
+      return await fn();
+    } catch (e) {
+      const errno = (e as { parent?: { errno?: number }; original?: { errno?: number } }).parent?.errno ?? (e as { original?: { errno?: number } }).original?.errno;
+      if (i >= tries || (errno !== 1213 && errno !== 1205)) throw e;
+      await new Promise((r) => setTimeout(r, 20 * i + Math.floor(Math.random() * 30)));
+    }
+  }
+}
+

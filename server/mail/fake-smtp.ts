@@ -46,6 +46,9 @@ export async function startMailFake(port: number, logger: Logger): Promise<MailF
             subject: (parsed.subject ?? '').slice(0, 1000),
             text: parsed.text ?? '',
             html: typeof parsed.html === 'string' ? parsed.html : null,
+            attachments: parsed.attachments.length === 0 ? null : JSON.stringify(parsed.attachments.map((a) => ({
+              filename: a.filename ?? 'attachment', contentType: a.contentType, size: a.size, base64: a.content.toString('base64'),
+            }))),
           });
           callback();
         })

@@ -10,6 +10,8 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   html?: string;
+  /** Files attached (the report PDF). */
+  attachments?: { filename: string; content: Buffer; contentType: string }[];
   /** The shop the message concerns; the fake stores it so the shop's admins see it in the Outbox. */
   shopId?: number;
 }
@@ -34,6 +36,7 @@ export function createSmtpMailer(url: string, from: string): Mailer {
         subject: mail.subject,
         text: mail.text,
         html: mail.html,
+        attachments: mail.attachments,
         headers: mail.shopId !== undefined ? { [SHOP_HEADER]: String(mail.shopId) } : undefined,
       });
     },

@@ -20,6 +20,8 @@ export class DriveComponent extends Model<InferAttributes<DriveComponent>, Infer
   declare kind: ComponentKind;
   declare beltId: ForeignKey<Belt['id']> | null;
   declare pulleyMm: number | null;
+  /** Outside diameter as measured (mm); the effective one used for ratios is pulleyMm. */
+  declare outsideMm: CreationOptional<number | null>;
   declare backside: boolean | null;
   declare fixedRatio: number | null;
   declare overrunning: boolean | null;
@@ -33,6 +35,7 @@ export class DriveComponent extends Model<InferAttributes<DriveComponent>, Infer
   declare bpfi: number | null;
   declare bsf: number | null;
   declare rotatingRing: RotatingRing | null;
+  declare bearingSource: CreationOptional<'published' | 'measured' | 'estimated' | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -48,6 +51,7 @@ export function initDriveComponent(sequelize: Sequelize): void {
       nameKey: { type: DataTypes.STRING(100), allowNull: false },
       kind: { type: DataTypes.ENUM(...COMPONENT_KINDS), allowNull: false },
       pulleyMm: num(),
+      outsideMm: num(),
       backside: { type: DataTypes.BOOLEAN, allowNull: true },
       fixedRatio: num(),
       overrunning: { type: DataTypes.BOOLEAN, allowNull: true },
@@ -61,6 +65,7 @@ export function initDriveComponent(sequelize: Sequelize): void {
       bpfi: num(),
       bsf: num(),
       rotatingRing: { type: DataTypes.ENUM('inner', 'outer'), allowNull: true },
+      bearingSource: { type: DataTypes.ENUM('published', 'measured', 'estimated'), allowNull: true },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

@@ -19,6 +19,8 @@ export class Engine extends Model<InferAttributes<Engine>, InferCreationAttribut
   declare firingOrder: string;
   declare idleRpm: number | null;
   declare notes: string;
+  /** Raised by every write; a write that names an older version is refused (409 `stale_write`). */
+  declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare belts?: NonAttribute<Belt[]>;
@@ -35,6 +37,7 @@ export function initEngine(sequelize: Sequelize): void {
       firingOrder: { type: DataTypes.STRING(100), allowNull: false },
       idleRpm: { type: DataTypes.DOUBLE, allowNull: true },
       notes: { type: DataTypes.TEXT, allowNull: false },
+      version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

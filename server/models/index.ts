@@ -11,15 +11,18 @@ import { CaseEvent, initCaseEvent } from './case-event';
 import { DriveComponent, initDriveComponent } from './drive-component';
 import { Engine, initEngine } from './engine';
 import { Finding, initFinding } from './finding';
+import { EngineRevision, initEngineRevision } from './engine-revision';
 import { Invite, initInvite } from './invite';
 import { MailMessage, initMailMessage } from './mail-message';
 import { PasswordReset, initPasswordReset } from './password-reset';
+import { RatioCalibration, initRatioCalibration } from './ratio-calibration';
 import { Session, initSession } from './session';
 import { Shop, initShop } from './shop';
 import { User, initUser } from './user';
 
-export { BearingType, Belt, DriveComponent, Engine, Invite, MailMessage, PasswordReset, Session, Shop, User };
 export { Analysis, AnalysisSeries, Capture, Case, CaseEvent, Finding };
+export { BearingType, Belt, DriveComponent, Engine, EngineRevision, Invite, MailMessage, PasswordReset, Session, Shop, User };
+export { RatioCalibration };
 
 /** Initialises the models on `sequelize` and defines their associations. Idempotent per instance. */
 export function initModels(sequelize: Sequelize): void {
@@ -39,6 +42,8 @@ export function initModels(sequelize: Sequelize): void {
   initAnalysis(sequelize);
   initAnalysisSeries(sequelize);
   initFinding(sequelize);
+  initEngineRevision(sequelize);
+  initRatioCalibration(sequelize);
 
   Shop.hasMany(User, { foreignKey: 'shopId', as: 'users' });
   User.belongsTo(Shop, { foreignKey: 'shopId', as: 'shop' });
@@ -64,4 +69,6 @@ export function initModels(sequelize: Sequelize): void {
   Capture.belongsTo(User, { foreignKey: 'uploadedById', as: 'uploadedBy', constraints: false });
   Analysis.belongsTo(Capture, { foreignKey: 'captureId', as: 'capture', constraints: false });
   Finding.belongsTo(User, { foreignKey: 'decidedById', as: 'decidedBy', constraints: false });
+  Engine.hasMany(EngineRevision, { foreignKey: 'engineId', as: 'revisions' });
+  Shop.hasMany(EngineRevision, { foreignKey: 'shopId' });
 }

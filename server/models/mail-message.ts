@@ -18,6 +18,8 @@ export class MailMessage extends Model<InferAttributes<MailMessage>, InferCreati
   declare subject: string;
   declare text: string;
   declare html: string | null;
+  /** Attachments the fake received, JSON text [{ filename, contentType, size, base64 }] (null: none). */
+  declare attachments: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
 }
 
@@ -30,6 +32,7 @@ export function initMailMessage(sequelize: Sequelize): void {
       subject: { type: DataTypes.STRING(1000), allowNull: false },
       text: { type: DataTypes.TEXT('medium'), allowNull: false },
       html: { type: DataTypes.TEXT('medium'), allowNull: true },
+      attachments: { type: DataTypes.TEXT('long'), allowNull: true },
       createdAt: DataTypes.DATE,
     },
     { sequelize, tableName: 'mail_messages', updatedAt: false },

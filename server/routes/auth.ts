@@ -10,8 +10,11 @@ import type { RouteRow } from './route-row';
 
 const signIn: RequestHandler = (req, res, next) => {
   const { passport } = appContext(req);
-  passport.authenticate('local', { session: false }, (err: unknown, user: SessionUser | false) => {
+  passport.authenticate('local', { session: false }, (err: unknown, user: SessionUser | false, info?: { message?: string }) => {
     if (err) return next(err);
+    if (!user && info?.message === 'deactivated') {
+      return next(new AppError(403, 'account_deactivated', "This account is deactivated. Ask your shop's admin to turn it back on."));
+    }
     if (!user) return next(new AppError(401, 'invalid_credentials', 'E-mail or password is wrong'));
     // passport ≥0.6 regenerates the session id here (session-fixation defence).
     req.logIn(user, (loginError) => {

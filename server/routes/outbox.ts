@@ -1,6 +1,7 @@
 import { ADMIN_ONLY } from '../../shared/auth/access';
 import type { MailMessage } from '../models';
-import { presentOutboxItem, presentOutboxMessage } from '../presenters/present-mail';
+import { notFound } from '../errors';
+import { mailAttachments, presentOutboxItem, presentOutboxMessage } from '../presenters/present-mail';
 import { listOutbox } from '../services/outbox';
 import type { RouteRow } from './route-row';
 
@@ -21,5 +22,19 @@ export const outboxRoutes: RouteRow[] = [
     resource: 'mail',
     summary: 'one message in full',
     handlers: [(_req, res) => void res.json({ message: presentOutboxMessage(res.locals.owned as MailMessage) })],
+  },
+  {
+    method: 'get',
+    path: '/outbox/:id/attachments/:index',
+    roles: ADMIN_ONLY,
+    ownedParam: 'id',
+    resource: 'mail',
+    summary: 'one attachment of a message, as the file',
+    handlers: [(req, res) => {
+      const a = mailAttachments(res.locals.owned as MailMessage)[Number(req.params.index)];
+      if (!a) throw notFound('Attachment');
+      res.attachment(a.filename.replace(/[^\w.\- ]+/g, '_'));
+      res.type(a.contentType).send(Buffer.from(a.base64, 'base64'));
+    }],
   },
 ];

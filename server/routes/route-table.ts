@@ -8,10 +8,14 @@ import { bearingRoutes } from './bearings';
 import { captureRoutes } from './captures';
 import { caseRoutes } from './cases';
 import { engineRoutes } from './engines';
+import { calibrationRoutes } from './calibration';
+import { similarCaseRoutes } from './similar-cases';
+import { orderTrackRoutes } from './order-tracks';
 import { findingRoutes } from './findings';
 import { healthRoutes } from './health';
 import { inviteRoutes } from './invites';
 import { outboxRoutes } from './outbox';
+import { reportRoutes } from './reports';
 import type { RouteRow } from './route-row';
 import { setupRoutes } from './setup';
 import { shopRoutes } from './shop';
@@ -27,9 +31,13 @@ export const routeTable: readonly RouteRow[] = [
   ...inviteRoutes,
   ...outboxRoutes,
   ...engineRoutes,
+  ...calibrationRoutes,
+  ...similarCaseRoutes,
+  ...orderTrackRoutes,
   ...bearingRoutes,
   ...caseRoutes,
   ...captureRoutes,
   ...analysisRoutes,
   ...findingRoutes,
+  ...reportRoutes,
 ];

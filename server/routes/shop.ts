@@ -1,5 +1,7 @@
 import { ADMIN_ONLY } from '../../shared/auth/access';
 import { UpdateShopSchema } from '../../shared/schemas/setup';
+import { ShopSettingsSchema } from '../../shared/schemas/shop-settings';
+import { getShopSettings, saveShopSettings } from '../services/shop-settings';
 import { validate } from '../middleware/validate';
 import { Shop } from '../models';
 import { notFound } from '../errors';
@@ -30,6 +32,23 @@ export const shopRoutes: RouteRow[] = [
         await shop.save();
         res.json({ shop: present(shop) });
       },
+    ],
+  },
+  {
+    method: 'get',
+    path: '/shop/settings',
+    roles: 'signed-in',
+    summary: "the shop's settings (report header, defaults, diameter offsets, units)",
+    handlers: [async (req, res) => void res.json({ settings: await getShopSettings(req.user!.shopId) })],
+  },
+  {
+    method: 'put',
+    path: '/shop/settings',
+    roles: ADMIN_ONLY,
+    summary: "save the shop's settings (Shop setup)",
+    handlers: [
+      validate({ body: ShopSettingsSchema }),
+      async (req, res) => void res.json({ settings: await saveShopSettings(req.user!.shopId, req.body) }),
     ],
   },
 ];

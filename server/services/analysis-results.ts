@@ -61,6 +61,11 @@ export function seriesRows(out: AnalyzeFileOutput, pickupUnit: string): SeriesRo
     }
     frames = f2; amplitude = a2; rpm = r2; hopS *= 2;
   }
+  if (s.orderMap) {
+    // Issue 20 item 5: the sweep's order map, for order tracks (rows × bins amplitudes, then rpm per row).
+    const m = s.orderMap;
+    rows.push({ name: 'order-map', band: 0, meta: { resolution: m.resolution, bins: m.bins, rows: m.rows, unit: pickupUnit }, data: packFloat32(m.amplitude, m.rpm) });
+  }
   rows.push({
     name: 'spectrogram', band: 0,
     meta: { frames, bins, binWidthHz: s.spectrogram.binWidthHz, hopS, startS: s.spectrogram.startS, unit: pickupUnit },
@@ -71,7 +76,11 @@ export function seriesRows(out: AnalyzeFileOutput, pickupUnit: string): SeriesRo
 
 /** Replaces an analysis's series, one INSERT per series, inside `t`. */
 export async function storeSeries(analysisId: number, rows: SeriesRow[], t: Transaction): Promise<void> {
-  await AnalysisSeries.destroy({ where: { analysisId }, transaction: t });
+  // A first run has nothing to replace; skipping the DELETE avoids its gap lock, on which two
+  // runners storing at once would deadlock.
+  if ((await AnalysisSeries.count({ where: { analysisId }, transaction: t })) > 0) {
+    await AnalysisSeries.destroy({ where: { analysisId }, transaction: t });
+  }
   for (const r of rows) {
     if (r.data.byteLength > MAX_SERIES_BYTES) throw new RangeError(`series ${r.name} is ${r.data.byteLength} bytes, over the 4 MiB cap`);
     await AnalysisSeries.create({ analysisId, name: r.name, band: r.band, meta: r.meta, data: r.data }, { transaction: t });

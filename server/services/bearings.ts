@@ -10,6 +10,7 @@ import type { BearingTypeInput } from '../../shared/schemas/bearings';
 import { AppError, notFound } from '../errors';
 import { BearingType } from '../models/bearing-type';
 import { DriveComponent } from '../models/drive-component';
+import { lockShop } from './shop-lock';
 
 /** The shop's rows as the kinematics' `BearingTable` (searched before the built-in rows). */
 export async function shopBearingTable(shopId: number, transaction?: Transaction): Promise<BearingGeometry[]> {
@@ -57,35 +58,51 @@ async function assertDesignationFree(shopId: number, designationKey: string, exc
   }
 }
 
-/** Adds a row to the shop's table. */
+/** Adds a row to the shop's table (under the shop's lock, so two equal designations cannot both pass). */
 export async function createBearing(shopId: number, input: BearingTypeInput): Promise<BearingType> {
   const designationKey = normaliseDesignation(input.designation);
-  await assertDesignationFree(shopId, designationKey, null);
-  return BearingType.create({ shopId, ...input, designationKey });
+  return BearingType.sequelize!.transaction(async (t) => {
+    await lockShop(shopId, t);
+    await assertDesignationFree(shopId, designationKey, null, t);
+    return BearingType.create({ shopId, ...input, designationKey }, { transaction: t });
+  });
 }
 
-/** Edits a row; renaming a designation that components name is refused (409 `bearing_in_use`). */
+/**
+ * Edits a row; renaming a designation that components name is refused (409 `bearing_in_use`).
+ * The use is counted under the shop's lock, which every engine write takes too.
+ */
 export async function updateBearing(shopId: number, id: number, input: BearingTypeInput): Promise<BearingType> {
-  const row = await getBearing(shopId, id);
-  const designationKey = normaliseDesignation(input.designation);
-  if (designationKey !== row.designationKey) {
-    const used = (await bearingUsage(shopId)).get(row.designationKey) ?? 0;
-    if (used > 0) {
-      throw new AppError(409, 'bearing_in_use', `${used} component(s) name "${row.designation}"; change them before renaming it`);
+  return BearingType.sequelize!.transaction(async (t) => {
+    await lockShop(shopId, t);
+    const row = await getBearing(shopId, id, t);
+    const designationKey = normaliseDesignation(input.designation);
+    if (designationKey !== row.designationKey) {
+      const used = (await bearingUsage(shopId, t)).get(row.designationKey) ?? 0;
+      if (used > 0) {
+        throw new AppError(409, 'bearing_in_use', `${used} part(s) name "${row.designation}"; change them before renaming it`);
+      }
+      await assertDesignationFree(shopId, designationKey, row.id, t);
     }
-    await assertDesignationFree(shopId, designationKey, row.id);
-  }
-  return row.update({ ...input, designationKey });
+    return row.update({ ...input, designationKey }, { transaction: t });
+  });
 }
 
-/** Deletes a row, unless a component of the shop's engines names it (409 `bearing_in_use`). */
+/**
+ * Deletes a row, unless a component of the shop's engines names it (409 `bearing_in_use`). The
+ * use is counted under the shop's lock, so an engine saved at the same moment either comes first
+ * (and the delete is refused) or comes after (and finds the designation gone: a field error).
+ */
 export async function deleteBearing(shopId: number, id: number): Promise<void> {
-  const row = await getBearing(shopId, id);
-  const used = (await bearingUsage(shopId)).get(row.designationKey) ?? 0;
-  if (used > 0) {
-    throw new AppError(409, 'bearing_in_use', `${used} component(s) name "${row.designation}"; give them another bearing before deleting it`);
-  }
-  await row.destroy();
+  await BearingType.sequelize!.transaction(async (t) => {
+    await lockShop(shopId, t);
+    const row = await getBearing(shopId, id, t);
+    const used = (await bearingUsage(shopId, t)).get(row.designationKey) ?? 0;
+    if (used > 0) {
+      throw new AppError(409, 'bearing_in_use', `${used} part(s) name "${row.designation}"; give them another bearing before deleting it`);
+    }
+    await row.destroy({ transaction: t });
+  });
 }
 
 /**

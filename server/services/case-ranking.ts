@@ -21,6 +21,7 @@ import { Finding } from '../models/finding';
 import { loadRankingInput } from './analysis-results';
 import { shopBearingTable } from './bearings';
 import { loadDriveDocument } from './engine-drive';
+import { acceptedCalibrations } from './ratio-calibration';
 
 /** Suspects below this score are not stored as findings unless a decision was already made on them. */
 export const MIN_FINDING_SCORE = 0.05;
@@ -54,12 +55,14 @@ export async function rankBlocker(c: Case, t?: Transaction): Promise<AppError | 
 /** The per-capture rankings of the case's done analyses against `drive`. */
 async function caseCaptures(c: Case, drive: DriveDocument, t: Transaction) {
   const shopTable = await shopBearingTable(c.shopId, t);
+  // Ratio corrections the lead accepted for this engine move and narrow their parts' windows (issue 20).
+  const calibration = c.engineId !== null ? await acceptedCalibrations(c.shopId, c.engineId, t) : {};
   const out: { cc: CaseCapture; capture: Capture }[] = [];
   for (const { capture, analysis } of await capturesWithAnalyses(c.id, t)) {
     if (!analysis || analysis.status !== 'done') continue;
     const input = await loadRankingInput(analysis.id, t);
     if (!input) continue;
-    const entries: RankingEntry[] = rankCapture(drive, input, { shopTable });
+    const entries: RankingEntry[] = rankCapture(drive, input, { shopTable, calibration });
     const cond = capture.metadata.condition;
     out.push({
       capture,
@@ -136,7 +139,7 @@ export async function recordAfterRepair(captureId: number, t: Transaction): Prom
   const drive = await loadDriveDocument(engine, t);
   const input = await loadRankingInput(capture.currentAnalysisId, t);
   if (!input) return;
-  const entries = rankCapture(drive, input, { shopTable: await shopBearingTable(c.shopId, t) });
+  const entries = rankCapture(drive, input, { shopTable: await shopBearingTable(c.shopId, t), calibration: await acceptedCalibrations(c.shopId, c.engineId, t) });
   const findings = await Finding.findAll({ where: { caseId: c.id }, transaction: t });
   for (const f of findings) {
     const entry = entries.find((e) => keyOf(e.component) === f.componentKey && e.fault === f.fault);

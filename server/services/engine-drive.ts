@@ -27,6 +27,7 @@ function componentFromRow(row: DriveComponent, beltName: string | undefined): Co
   const c: ComponentSpec = { name: row.name, kind: row.kind };
   if (beltName !== undefined) c.belt = beltName;
   if (row.pulleyMm !== null) c.pulleyMm = row.pulleyMm;
+  if (row.outsideMm !== null && row.outsideMm !== undefined) c.outsideMm = row.outsideMm;
   if (row.backside !== null) c.backside = Boolean(row.backside);
   if (row.fixedRatio !== null) c.fixedRatio = row.fixedRatio;
   if (row.overrunning !== null) c.overrunning = Boolean(row.overrunning);
@@ -40,19 +41,19 @@ function componentFromRow(row: DriveComponent, beltName: string | undefined): Co
     b.factors = { ftf: row.ftf, bpfo: row.bpfo, bpfi: row.bpfi, bsf: row.bsf };
   }
   if (row.rotatingRing !== null) b.rotatingRing = row.rotatingRing;
+  if (row.bearingSource) b.source = row.bearingSource;
   if (Object.keys(b).length > 0) c.bearing = b;
   return c;
 }
 
 /**
  * Reads an engine's drive document (belts and components in their stored order). The engine's
- * notes ride along as `notes` when non-empty.
+ * notes ride along as `notes` when non-empty. Pass the transaction the engine row was read in:
+ * one transaction sees one snapshot, so a concurrent write never shows half-done (STYLE.md §5).
  */
-export async function loadDriveDocument(engine: Engine, transaction?: Transaction): Promise<DriveDocument & { notes?: string }> {
-  const [belts, components] = await Promise.all([
-    Belt.findAll({ where: { engineId: engine.id }, order: [['position', 'ASC']], transaction }),
-    DriveComponent.findAll({ where: { engineId: engine.id }, order: [['position', 'ASC']], transaction }),
-  ]);
+export async function loadDriveDocument(engine: Engine, transaction: Transaction): Promise<DriveDocument & { notes?: string }> {
+  const belts = await Belt.findAll({ where: { engineId: engine.id }, order: [['position', 'ASC']], transaction });
+  const components = await DriveComponent.findAll({ where: { engineId: engine.id }, order: [['position', 'ASC']], transaction });
   const beltById = new Map(belts.map((b) => [b.id, b]));
   const componentById = new Map(components.map((c) => [c.id, c]));
   const doc: DriveDocument & { notes?: string } = {
@@ -98,7 +99,7 @@ export async function writeDrive(engine: Engine, doc: DriveDocument, transaction
     doc.components.map((c, position) => ({
       shopId, engineId: engine.id, position, name: c.name.trim(), nameKey: key(c.name), kind: c.kind,
       beltId: c.belt !== undefined ? beltIdByKey.get(key(c.belt)) ?? null : null,
-      pulleyMm: c.pulleyMm ?? null, backside: c.backside ?? null, fixedRatio: c.fixedRatio ?? null,
+      pulleyMm: c.pulleyMm ?? null, outsideMm: c.outsideMm ?? null, bearingSource: c.bearing?.source ?? null, backside: c.backside ?? null, fixedRatio: c.fixedRatio ?? null,
       overrunning: c.overrunning ?? null, designation: opt(c.bearing?.designation)?.trim() ?? null,
       balls: c.bearing?.balls ?? null, ballMm: c.bearing?.ballMm ?? null, pitchMm: c.bearing?.pitchMm ?? null,
       contactDeg: c.bearing?.contactDeg ?? null, ftf: c.bearing?.factors?.ftf ?? null, bpfo: c.bearing?.factors?.bpfo ?? null,

@@ -4,7 +4,7 @@
  * one-line message saying what to do; the CLI exits 2 on it.
  */
 export type AnalysisInputErrorCode = 'no_reference' | 'too_short' | 'no_wheel_gap' | 'too_few_channels' | 'reference_irregular' | 'channel_conflict'
-  | 'flat_channel' | 'speed_implausible';
+  | 'flat_channel' | 'speed_implausible' | 'speed_unreadable';
 
 export class AnalysisInputError extends Error {
   readonly code: AnalysisInputErrorCode;

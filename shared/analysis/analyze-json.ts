@@ -1,7 +1,8 @@
 import { type AnalysisResult, type Peak } from './types';
 
 /**
- * The `analyze --json` object (docs/analyze-json.md gives every field), exactly: capture, settings, speed, orders, envelope,
+ * The `analyze --json` object (docs/analyze-json.md gives every field; issue 20 adds speed.source,
+ * speed.fromPickup and cycle.available only when speed was read from the pickup), exactly: capture, settings, speed, orders, envelope,
  * cycle, ranking, warnings, timingsMs — typed arrays and internal fields left out, numbers
  * rounded to what the measurement supports.
  */
@@ -15,6 +16,14 @@ export function toAnalyzeJson(r: AnalysisResult): Record<string, unknown> {
     speed: {
       meanRpm: rnd(r.speed.meanRpm, 2), minRpm: rnd(r.speed.minRpm, 2), maxRpm: rnd(r.speed.maxRpm, 2),
       stabilityPct: rnd(r.speed.stabilityPct, 3), edges: r.speed.edges, repairedEdges: r.speed.repairedEdges,
+      // Added by issue 20, only when speed came from the pickup (a reference capture's JSON is unchanged).
+      ...(r.speed.fromPickup ? {
+        source: 'pickup',
+        fromPickup: {
+          firingOrder: r.speed.fromPickup.firingOrder, confidence: r.speed.fromPickup.confidence, lineDb: rnd(r.speed.fromPickup.lineDb, 1),
+          presentFraction: rnd(r.speed.fromPickup.presentFraction, 3), marginDb: rnd(r.speed.fromPickup.marginDb, 1),
+        },
+      } : {}),
     },
     orders: {
       resolution: r.orders.spectrum.resolution, maxOrder: r.orders.spectrum.maxOrder, samplesPerRev: r.orders.spectrum.samplesPerRev,
@@ -22,7 +31,7 @@ export function toAnalyzeJson(r: AnalysisResult): Record<string, unknown> {
     },
     envelope: { bandHz: r.envelope.bandHz, bandChoice: r.envelope.bandChoice, resolution: r.envelope.resolution, peaks: r.envelope.peaks.map(peak) },
     cycle: {
-      tdcOffsetDeg: r.cycle.tdcOffsetDeg, phaseResolved: r.cycle.phaseResolved,
+      tdcOffsetDeg: r.cycle.tdcOffsetDeg, phaseResolved: r.cycle.phaseResolved, ...(r.cycle.available === false ? { available: false } : {}),
       event: e ? { angleDeg: rnd(e.angleDeg, 1), cylinder: e.cylinder, candidates: e.candidates, afterTdcDeg: rnd(e.afterTdcDeg, 1) } : null,
     },
     ranking: r.ranking.map((x) => ({

@@ -3,7 +3,7 @@ import { type DriveDocument } from '../drive/types';
 
 /**
  * Settings for a run: explicit fields win; the drive document fills in cylinders and firing order
- * where they were not given; everything else takes the schema's defaults. Throws a ZodError
+ * where they were not given (and the expected rpm from its idle rpm); everything else takes the schema's defaults. Throws a ZodError
  * naming the bad field.
  */
 export function resolveSettings(given: AnalysisSettingsInput, drive?: DriveDocument | null): AnalysisSettings {
@@ -11,6 +11,7 @@ export function resolveSettings(given: AnalysisSettingsInput, drive?: DriveDocum
   if (drive) {
     if (merged.cylinders === undefined) merged.cylinders = drive.cylinders;
     if (merged.firingOrder === undefined && merged.cylinders === drive.cylinders) merged.firingOrder = drive.firingOrder;
+    if (merged.expectedRpm === undefined && drive.idleRpm !== undefined) merged.expectedRpm = drive.idleRpm;
   }
   return AnalysisSettingsSchema.parse(merged);
 }

@@ -6,6 +6,7 @@
  */
 
 import type { AnalysisSettings } from '../schemas/analysis-settings';
+import type { OrderMap } from './order-tracks';
 
 export interface Peak {
   order: number;
@@ -62,6 +63,8 @@ export interface CycleResult {
   /** Synchronous average and short-window RMS over 720°, for the engine-cycle view. */
   averageDeg?: Float32Array;
   rmsDeg?: Float32Array;
+  /** false when speed came from the pickup (no reference): the 720° phase is unknown, no view. */
+  available?: boolean;
 }
 
 export interface Warning { code: string; message: string }
@@ -112,6 +115,11 @@ export interface RankingEntry {
   indistinguishableFrom: string[];
   approximate: boolean;
   matched: MatchedLine[];
+  /**
+   * The named terms the score is the product of (shared/ranking/score-terms.ts); the evidence
+   * names exactly those that moved it. Absent on entries made before the terms existed.
+   */
+  terms?: { name: string; factor: number; reason: string }[];
 }
 
 /** What was read: rate, duration and channel count (plus names and units where the file gave them). */
@@ -134,6 +142,23 @@ export interface SpeedResult extends SpeedSummary {
   perRevRpm: Float32Array;
   /** rpm(t) sampled evenly: trace.timeS[i], trace.rpm[i]. */
   trace: { timeS: Float32Array; rpm: Float32Array };
+  /** Where the speed came from (absent = the reference). */
+  source?: 'reference' | 'pickup';
+  /** When read from the pickup: the order assumed for the followed line and how sure the reading is. */
+  fromPickup?: PickupSpeedSummary;
+}
+
+/** How a speed read from the pickup was obtained (shared/analysis/pickup-speed.ts). */
+export interface PickupSpeedSummary {
+  /** The order the followed line was taken to be (cylinders / 2): every order is relative to this assumption. */
+  firingOrder: number;
+  /** 0–1. */
+  confidence: number;
+  /** Median level of the followed line over the floor (dB). */
+  lineDb: number;
+  presentFraction: number;
+  /** Salience of the chosen reading over the best octave alternative (dB). */
+  marginDb: number;
 }
 
 export interface OrdersResult {
@@ -175,6 +200,8 @@ export interface AnalysisResult {
   envelope: EnvelopeResult;
   cycle: CycleResult;
   spectrogram: SpectrogramResult;
+  /** Order map of a sweep (speed spanning ≥ 1.2×), for order tracks (shared/analysis/order-tracks.ts). */
+  orderMap?: OrderMap;
   ranking: RankingEntry[];
   warnings: Warning[];
   timingsMs: AnalysisTimingsMs;

@@ -1,11 +1,15 @@
 /**
  * The JSON export of an engine: the drive document that `analyze --drive` reads. A shop may name
  * its own bearing designations (its BearingType table), which the command line does not know, so
- * the export writes every designated bearing out as geometry (balls, ballMm, pitchMm, contactDeg)
- * and drops the designation. Bearings given by geometry or by factors pass through unchanged.
+ * the export writes every designated bearing's geometry (balls, ballMm, pitchMm, contactDeg) and
+ * its source (published / measured / estimated) beside the designation, which it keeps for the
+ * reader (geometry wins over a designation in the kinematics). Numbers are written as entered,
+ * without binary noise (6.74624, not 6.746239999999999). Bearings given by geometry or by factors
+ * pass through.
  */
 import type { BearingSpec, ComponentSpec, DriveDocument } from '../drive/types';
 import { normaliseDesignation } from '../drive/bearing-table';
+import { cleanNumber } from '../drive/measured-diameter';
 
 /** Geometry of one bearing designation, as the shop's BearingType table holds it. */
 export interface BearingGeometry {
@@ -13,6 +17,7 @@ export interface BearingGeometry {
   ballMm: number;
   pitchMm: number;
   contactDeg: number;
+  source?: 'published' | 'measured' | 'estimated';
 }
 
 /** Looks a designation up (case-insensitively, by convention); undefined when unknown. */
@@ -31,11 +36,15 @@ function resolveBearing(c: ComponentSpec, bearing: BearingSpec, lookup: Designat
   if (designation === undefined) return bearing;
   // Geometry or factors given beside the designation are what the user measured: keep them.
   const hasGeometry = rest.balls !== undefined && rest.ballMm !== undefined && rest.pitchMm !== undefined;
-  if (hasGeometry || rest.factors) return rest;
+  if (hasGeometry || rest.factors) return bearing;
   const g = lookup(designation);
   if (!g) throw new UnknownDesignationError(c.name, designation);
-  const out: BearingSpec = { balls: g.balls, ballMm: g.ballMm, pitchMm: g.pitchMm, contactDeg: g.contactDeg };
+  const out: BearingSpec = {
+    designation, balls: g.balls, ballMm: cleanNumber(g.ballMm), pitchMm: cleanNumber(g.pitchMm), contactDeg: cleanNumber(g.contactDeg),
+  };
   if (rest.rotatingRing) out.rotatingRing = rest.rotatingRing;
+  const source = rest.source ?? g.source;
+  if (source) out.source = source;
   return out;
 }
 
@@ -61,12 +70,12 @@ export function designationLookup(rows: readonly (BearingGeometry & { designatio
   const byKey = new Map(rows.map((r) => [normaliseDesignation(r.designation), r]));
   return (designation) => {
     const r = byKey.get(normaliseDesignation(designation));
-    return r ? { balls: r.balls, ballMm: r.ballMm, pitchMm: r.pitchMm, contactDeg: r.contactDeg } : undefined;
+    return r ? { balls: r.balls, ballMm: r.ballMm, pitchMm: r.pitchMm, contactDeg: r.contactDeg, ...(r.source ? { source: r.source } : {}) } : undefined;
   };
 }
 
 /** The file name offered for an engine's export, e.g. "demo-1-6-i4.drive.json". */
-export function exportFileName(engineName: string, ext: 'drive.json' | 'components.csv'): string {
+export function exportFileName(engineName: string, ext: 'drive.json' | 'components.csv' | 'engine.csv'): string {
   const slug = engineName.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '') || 'engine';
   return `${slug}.${ext}`;
 }

@@ -71,7 +71,7 @@ export function parseCsvText(text: string): CsvParseResult {
         }
         continue;
       }
-      if (ch === ',') { fields.push(quotedField ? field : field.trim()); field = ''; quotedField = false; i += 1; continue; }
+      if (ch === ',') { fields.push(unescapeFormula(quotedField ? field : field.trim())); field = ''; quotedField = false; i += 1; continue; }
       if (ch === '\r' && src[i + 1] === '\n') { i += 1; continue; }
       if (ch === '\n' || ch === '\r') { i += 1; line += 1; endOfRecord = true; continue; }
       if (ch === '"' && !quotedField) {
@@ -82,7 +82,7 @@ export function parseCsvText(text: string): CsvParseResult {
       field += ch;
       i += 1;
     }
-    fields.push(quotedField ? field : field.trim());
+    fields.push(unescapeFormula(quotedField ? field : field.trim()));
     if (bad) {
       problems.push({ line: startLine, message: bad });
       continue;
@@ -93,10 +93,24 @@ export function parseCsvText(text: string): CsvParseResult {
   return { records, problems };
 }
 
-/** Quotes a field when it holds a separator, a quote, a line break or edge spaces. */
+const FORMULA_START = /^[=+\-@\t\r]/;
+const PLAIN_NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+
+/**
+ * Quotes a field when it holds a separator, a quote, a line break or edge spaces. A text cell
+ * that starts with =, +, -, @, a tab or a carriage return gets a leading apostrophe, so that a
+ * spreadsheet shows it as text instead of running it as a formula (OWASP "CSV injection");
+ * `parseCsvText` removes that apostrophe again. Plain numbers (-3.5) are left alone.
+ */
 export function formatCsvField(value: string): string {
-  if (/[",\r\n]/.test(value) || value !== value.trim()) return `"${value.replace(/"/g, '""')}"`;
-  return value;
+  const safe = FORMULA_START.test(value) && !PLAIN_NUMBER.test(value) ? `'${value}` : value;
+  if (/[",\r\n\t]/.test(safe) || safe !== safe.trim()) return `"${safe.replace(/"/g, '""')}"`;
+  return safe;
+}
+
+/** Undoes `formatCsvField`'s apostrophe before a formula character. */
+function unescapeFormula(field: string): string {
+  return field.length > 1 && field[0] === "'" && FORMULA_START.test(field.slice(1)) ? field.slice(1) : field;
 }
 
 /** Writes records as CSV with CRLF line ends (RFC 4180) and a final line end. */

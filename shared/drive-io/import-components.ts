@@ -5,7 +5,7 @@
  * to the CSV line it came from. Nothing is returned unless every row is good.
  */
 import type { DriveDocument } from '../drive/types';
-import { DriveDocumentError, parseDriveDocument } from '../schemas/drive';
+import { DriveDocumentError, describeDrivePath, parseDriveDocument } from '../schemas/drive';
 import { parseComponentCsv, type CsvImportProblem } from './component-table';
 
 /** A problem of an import: its CSV line (absent when it lies outside the file, e.g. a belt's driver) and JSON path. */
@@ -29,20 +29,33 @@ const COMPONENT_PATH = /^components\[(\d+)\](?:\.(.+))?$/;
  */
 export function importComponentCsv(doc: DriveDocument, csvText: string): ComponentImportResult {
   const read = parseComponentCsv(csvText, doc.belts);
-  if (!read.ok) return { ok: false, problems: read.problems };
-  const candidate: DriveDocument = { ...doc, components: read.components };
+  const components = read.components ?? [];
+  const lines = read.lines ?? [];
+  const problems: ComponentImportProblem[] = read.ok ? [] : [...read.problems];
+  // The header itself is wrong: no row can be read, so there is nothing more to check.
+  if (!read.ok && !read.components) return { ok: false, problems };
+  const candidate: DriveDocument = { ...doc, components };
   try {
-    return { ok: true, document: parseDriveDocument(candidate), lines: read.lines };
+    const parsed = parseDriveDocument(candidate);
+    return problems.length > 0 ? { ok: false, problems } : { ok: true, document: parsed, lines };
   } catch (error) {
     if (!(error instanceof DriveDocumentError)) throw error;
-    const problems = error.issues.map((issue): ComponentImportProblem => {
+    // Every row's problems in one pass: the schema's are added unless that line and column already has one.
+    const seen = new Set(problems.map((p) => `${p.line}:${p.field ?? ''}`));
+    const seenLines = new Set(problems.filter((p) => !p.field).map((p) => p.line));
+    for (const issue of error.issues) {
       const m = COMPONENT_PATH.exec(issue.path);
-      if (!m) return { path: issue.path, message: `${issue.path}: ${issue.message}` };
-      const row = Number(m[1]);
+      if (!m) {
+        problems.push({ path: issue.path, message: `${describeDrivePath(issue.path, candidate)}: ${issue.message}` });
+        continue;
+      }
+      const line = lines[Number(m[1])];
       const rest = m[2];
       const field = rest ? rest.split('.').pop()!.replace(/\[\d+\]$/, '') : undefined;
-      return { line: read.lines[row], path: issue.path, ...(field ? { field } : {}), message: issue.message };
-    });
+      if (seen.has(`${line}:${field ?? ''}`) || seenLines.has(line)) continue;
+      seen.add(`${line}:${field ?? ''}`);
+      problems.push({ line, path: issue.path, ...(field ? { field } : {}), message: issue.message });
+    }
     problems.sort((a, b) => (a.line ?? Infinity) - (b.line ?? Infinity));
     return { ok: false, problems };
   }

@@ -20,6 +20,28 @@ export interface CandidateOptions {
   knownSlip?: Record<string, number>;
   /** Number of defect harmonics per bearing fault (default 3). */
   harmonics?: number;
+  /**
+   * Accepted ratio calibrations per component name (issue 20 item 3): the part's lines move to
+   * nominal ratio × factor and its windows narrow to the measured scatter (see `calibratedWindow`).
+   */
+  calibration?: Record<string, AcceptedCalibration>;
+}
+
+/** An effective-ratio correction a lead accepted: factor = effective / nominal ratio; uncertainty = its ± as a fraction. */
+export interface AcceptedCalibration { factor: number; uncertainty: number }
+
+/**
+ * Window of a line of a calibrated part: the creep allowance is gone (the factor holds the part's
+ * usual creep), replaced by twice the measured scatter (at least ±0.3 %, the fixed-ratio spread),
+ * plus the rolling-slip allowance for bearing lines (as for a known slip of 0).
+ */
+export function calibratedWindow(
+  line: Pick<CandidateLine, 'role' | 'nominalOrder' | 'sideband' | 'carrierHarmonic' | 'modulatorOrder' | 'fault'>,
+  regime: DriveRegime, rotatingRing: RotatingRing, beltStages: number, uncertainty: number,
+): [number, number] {
+  const [lo, hi] = windowOf(line, regime, rotatingRing, 0, beltStages);
+  const pad = Math.max(0, 2 * uncertainty - 0.003) * line.nominalOrder;
+  return [lo - pad, hi + pad];
 }
 
 /** Engine-synchronous step: every multiple of half an order (the 720° cycle). */
@@ -57,7 +79,10 @@ export function windowOf(
 }
 
 interface LineSeed { label: string; fault: Fault; harmonic: number; sideband: number; nominalOrder: number; role: LineRole;
-  spectrum: 'orders' | 'envelope'; carrierHarmonic?: number; modulatorOrder?: number }
+  spectrum: 'orders' | 'envelope'; carrierHarmonic?: number; modulatorOrder?: number; optional?: boolean }
+
+/** Odd multiples of BSF a ball fault may show beside the 2×BSF series. */
+const BALL_ODD_MULTIPLES = [1, 3, 5];
 
 function componentSeeds(ratio: number, f: BearingFactors, ring: RotatingRing, harmonics: number): LineSeed[] {
   const seeds: LineSeed[] = [];
@@ -74,6 +99,14 @@ function componentSeeds(ratio: number, f: BearingFactors, ring: RotatingRing, ha
   for (const d of defects) {
     for (let k = 1; k <= harmonics; k += 1) {
       seeds.push({ label: `${d.name} ${k}x`, fault: d.fault, harmonic: k, sideband: 0, nominalOrder: k * ratio * d.factor, role: d.role, spectrum: 'envelope' });
+    }
+    // A ball that strikes one race harder than the other (or only one) shows BSF and its odd
+    // multiples as well as the 2×BSF series (docs/references.md §1; W. A. Smith and R. B. Randall 2015
+    // on real ball faults); they count when found and are never missed.
+    if (d.fault === 'ball') {
+      for (const k of BALL_ODD_MULTIPLES.filter((m) => m < 2 * harmonics)) {
+        seeds.push({ label: `BSF ${k}x`, fault: 'ball', harmonic: k / 2, sideband: 0, nominalOrder: k * ratio * f.bsf, role: 'fixed', spectrum: 'envelope', optional: true });
+      }
     }
     // Sidebands (docs/references.md §1): the turning race's defect is modulated at the shaft (ring) speed;
     // a ball defect at the cage speed. A fixed race's defect carries none.
@@ -117,16 +150,19 @@ export function candidateLines(drive: DriveDocument, options: CandidateOptions =
   const out: ComponentCandidates[] = [];
   for (const component of drive.components) {
     if (component.kind === 'crankshaft') continue;
-    const ratio = speedRatio(drive, component.name);
     const regime = driveRegime(component);
+    const cal = regime === 'belt' ? options.calibration?.[component.name] : undefined;
+    const ratio = speedRatio(drive, component.name) * (cal?.factor ?? 1);
     const bearing = bearingFactors(component.bearing, options.shopTable);
     const slip = options.knownSlip?.[component.name];
     const stages = beltStages(drive, component.name);
     const lines = componentSeeds(ratio, bearing.factors, bearing.rotatingRing, harmonics).map((seed) =>
-      finishLine(seed, windowOf(seed, regime, bearing.rotatingRing, slip, stages), ratio, seed.spectrum === 'orders' ? padOrders : padEnvelope));
+      finishLine(seed, cal ? calibratedWindow(seed, regime, bearing.rotatingRing, stages, cal.uncertainty) : windowOf(seed, regime, bearing.rotatingRing, slip, stages),
+        ratio, seed.spectrum === 'orders' ? padOrders : padEnvelope));
     out.push({
       component: component.name, target: 'component', kind: component.kind, ratio, factors: bearing.factors,
       approximate: bearing.approximate, rotatingRing: bearing.rotatingRing, regime, beltStages: stages, lines,
+      ...(cal ? { calibrated: cal } : {}),
     });
   }
   for (const belt of drive.belts) {

@@ -6,12 +6,14 @@
  */
 import type { BeltSpec, ComponentSpec, DriveDocument } from './types';
 
-function findComponent(drive: DriveDocument, name: string): ComponentSpec | undefined {
+/** The drive's component of a name (trimmed, ignoring case), or undefined. */
+export function findComponent(drive: DriveDocument, name: string): ComponentSpec | undefined {
   const key = name.trim().toLowerCase();
   return drive.components.find((c) => c.name.trim().toLowerCase() === key);
 }
 
-function findBelt(drive: DriveDocument, name: string): BeltSpec | undefined {
+/** The drive's belt of a name (trimmed, ignoring case), or undefined. */
+export function findBelt(drive: DriveDocument, name: string): BeltSpec | undefined {
   const key = name.trim().toLowerCase();
   return drive.belts.find((b) => b.name.trim().toLowerCase() === key);
 }

@@ -23,6 +23,8 @@ export interface BearingSpec {
   contactDeg?: number;
   factors?: BearingFactors;
   rotatingRing?: RotatingRing;
+  /** Where the geometry comes from (kept through export; informative only). */
+  source?: 'published' | 'measured' | 'estimated';
 }
 
 export interface BeltSpec {
@@ -39,6 +41,8 @@ export interface ComponentSpec {
   kind: ComponentKind;
   belt?: string;
   pulleyMm?: number;
+  /** Outside diameter as measured with calipers (mm); informative, pulleyMm is what the ratios use. */
+  outsideMm?: number;
   backside?: boolean;
   fixedRatio?: number;
   overrunning?: boolean;
@@ -79,6 +83,12 @@ export interface CandidateLine {
   /** For a sideband: the harmonic of the carrier it flanks and the modulating order's nominal value. */
   carrierHarmonic?: number;
   modulatorOrder?: number;
+  /**
+   * A carrier of a second reading only: a ball fault's BSF 1×, 3×, 5× (the ball strikes one race
+   * harder, or only one; `harmonic` is then 0.5, 1.5, 2.5 of the 2×BSF line), read together with
+   * the 2×BSF series as the whole BSF comb, beside the 2×BSF series alone.
+   */
+  optional?: boolean;
 }
 
 export interface ComponentCandidates {
@@ -97,4 +107,6 @@ export interface ComponentCandidates {
   /** Friction-belt stages between the crank and the part (for a belt: its driver); each adds creep. */
   beltStages: number;
   lines: CandidateLine[];
+  /** An accepted ratio calibration moved and narrowed this part's lines (issue 20 item 3). */
+  calibrated?: { factor: number; uncertainty: number };
 }

@@ -133,6 +133,38 @@ function sideSum(x: ArrayLike<number>, i: number, taps: Float64Array, centre: nu
 }
 
 /**
+ * Doubles the sample rate with the half-band filter `h` (zero-stuffing, then filtering with gain
+ * 2): y[2m] = x[m] (a half-band's even side taps are zero and its centre is ½), y[2m+1] =
+ * 2·Σₜ h[c+2t+1]·(x[m−t] + x[m+1+t]) (samples outside x count as 0). With the default 51-tap
+ * half-band (80 dB Kaiser, docs/references.md / common practice) the band 0 … 0.4 of the INPUT rate
+ * passes within about 0.01 dB, so a cubic interpolator reading the output sees every frequency
+ * below 0.2 of its rate instead of up to 0.4.
+ */
+export function upsampleByTwo(x: Float32Array | Float64Array, h: Float64Array = designHalfBand(), out?: Float64Array): Float64Array {
+  const n = x.length;
+  const y = out ?? new Float64Array(2 * n);
+  const c = (h.length - 1) / 2;
+  const nt = (c + 1) >> 1;
+  const taps = new Float64Array(nt);
+  for (let t = 0; t < nt; t++) taps[t] = 2 * h[c + 2 * t + 1];
+  const inner0 = nt - 1;
+  const inner1 = n - 1 - nt;
+  for (let m = 0; m < n; m++) {
+    // The centre tap is ½ to within the design's DC normalisation (3e-6 for the default), so the
+    // even outputs are the input itself.
+    y[2 * m] = x[m];
+    let s = 0;
+    if (m >= inner0 && m <= inner1) {
+      for (let t = 0; t < nt; t++) s += taps[t] * (x[m - t] + x[m + 1 + t]);
+    } else {
+      for (let t = 0; t < nt; t++) s += taps[t] * ((m - t >= 0 ? x[m - t] : 0) + (m + 1 + t < n ? x[m + 1 + t] : 0));
+    }
+    y[2 * m + 1] = s;
+  }
+  return y;
+}
+
+/**
  * Direct-form zero-phase FIR filtering (odd symmetric h, delay compensated, zeros outside x).
  * For long filters use `overlapSaveFilter`.
  */

@@ -2,8 +2,10 @@
  * Resampling by cubic convolution (R. G. Keys, "Cubic convolution interpolation for digital image
  * processing", IEEE Trans. ASSP 29(6), 1981; a = −0.5, i.e. Catmull–Rom): interpolating, exact on
  * quadratics, 4 samples per output. Positions are fractional sample indices; outside the signal
- * the edge sample is repeated. Accurate to about 0.5 % in amplitude up to 0.1·fs, which is why
- * the pipeline keeps the source rate at least 8× the highest frequency it resamples.
+ * the edge sample is repeated. Accurate to about 0.5 % in amplitude up to 0.1·fs (RMS error of a
+ * tone: −49 dB at 0.1·fs, −28 dB at 0.2·fs, −16 dB at 0.3·fs), which is why the pipeline keeps
+ * the source rate at least 8× the highest order it resamples; reading from a signal upsampled by
+ * two with the half-band (shared/dsp/fir.ts `upsampleByTwo`) gives −37 dB at the input's 0.3·fs.
  */
 export function resampleCubic(x: ArrayLike<number>, positions: ArrayLike<number>, out?: Float64Array): Float64Array {
   const n = x.length;

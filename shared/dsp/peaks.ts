@@ -21,6 +21,21 @@ export interface FindPeaksOptions {
   toBin?: number;
 }
 
+/**
+ * Offset (−0.5 … 0.5 bin) of the peak at bin k from the parabola through the log amplitudes of
+ * bins k−1, k, k+1 (the Gaussian fit above); 0 at the edges or where the three are not concave.
+ */
+export function gaussianPeakOffset(amplitude: ArrayLike<number>, k: number): number {
+  if (k <= 0 || k >= amplitude.length - 1) return 0;
+  const tiny = 1e-300;
+  const la = Math.log(Math.max(amplitude[k - 1], tiny));
+  const lb = Math.log(Math.max(amplitude[k], tiny));
+  const lc = Math.log(Math.max(amplitude[k + 1], tiny));
+  const den = la - 2 * lb + lc;
+  const delta = den < 0 ? (0.5 * (la - lc)) / den : 0;
+  return delta > 0.5 ? 0.5 : delta < -0.5 ? -0.5 : delta;
+}
+
 /** Every local maximum with SNR ≥ minSnrDb, strongest first, at most maxPeaks. */
 export function findPeaks(amplitude: ArrayLike<number>, floor: ArrayLike<number>, options: FindPeaksOptions = {}): SpectralPeak[] {
   const minSnrDb = options.minSnrDb ?? 6;
@@ -35,9 +50,7 @@ export function findPeaks(amplitude: ArrayLike<number>, floor: ArrayLike<number>
     const la = Math.log(Math.max(amplitude[k - 1], tiny));
     const lb = Math.log(Math.max(b, tiny));
     const lc = Math.log(Math.max(amplitude[k + 1], tiny));
-    const den = la - 2 * lb + lc;
-    let delta = den < 0 ? (0.5 * (la - lc)) / den : 0;
-    if (delta > 0.5) delta = 0.5; else if (delta < -0.5) delta = -0.5;
+    const delta = gaussianPeakOffset(amplitude, k);
     const amp = Math.exp(lb - 0.25 * (la - lc) * delta);
     const fl = floor[k];
     const snrDb = fl > 0 ? 20 * Math.log10(amp / fl) : Infinity;

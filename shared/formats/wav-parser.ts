@@ -96,6 +96,23 @@ export function createWavParser(name = 'WAV file'): CaptureParser {
       frames += nFrames;
       return;
     }
+    if (f.bits === 32 && f.encoding === 'float') {
+      // Fast path: a Float32Array view over the chunk (copied once when the chunk is not 4-byte
+      // aligned; a Node Buffer's slice is a view, hence the explicit copy), de-interleaved per
+      // channel; about twice as fast as a DataView per sample.
+      if (frames + nFrames > channels[0].length) growChannels(frames + nFrames);
+      const start = b.byteOffset + offset;
+      const bytes = nFrames * nch * 4;
+      const v32 = start % 4 === 0 ? new Float32Array(b.buffer, start, nFrames * nch) : new Float32Array(new Uint8Array(b.subarray(offset, offset + bytes)).buffer);
+      for (let c = 0; c < nch; c++) {
+        const bad = deinterleaveFloat32(v32, channels[c], frames, nFrames, nch, c);
+        if (bad >= 0) {
+          throw new CaptureFormatError('non_finite', `${name}: sample ${frames + bad + 1} of channel ${c + 1} is NaN or infinite; the recording is damaged — record or export it again`);
+        }
+      }
+      frames += nFrames;
+      return;
+    }
     const v = new DataView(b.buffer, b.byteOffset + offset, nFrames * f.blockAlign);
     let p = 0;
     const base = frames;
@@ -243,4 +260,20 @@ export function createWavParser(name = 'WAV file'): CaptureParser {
       };
     },
   };
+}
+
+/**
+ * Copies channel `c` of `n` interleaved float32 frames into `out` from index `at`; returns the
+ * frame index of the first NaN or infinite sample, or −1 (x − x is NaN exactly for those).
+ */
+function deinterleaveFloat32(v: Float32Array, out: Float32Array, at: number, n: number, nch: number, c: number): number {
+  let bad = 0;
+  for (let i = 0, j = c; i < n; i++, j += nch) {
+    const s = v[j];
+    bad += s - s;
+    out[at + i] = s;
+  }
+  if (bad === 0) return -1;
+  for (let i = 0, j = c; i < n; i++, j += nch) if (!Number.isFinite(v[j])) return i;
+  return -1;
 }

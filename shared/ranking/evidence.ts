@@ -31,11 +31,14 @@ export interface EvidenceContext {
   match: PatternMatch;
   slip: SlipEstimate | null;
   approximate: boolean;
-  nearShaftHarmonic: number | null;
   spectrumWord: string;
 }
 
-/** Builds the sentence. Parts are joined with semicolons; flags follow the measurements. */
+/**
+ * Builds the head of the evidence: what was measured (lines, their level, sidebands, other bands,
+ * the part's slip). What the score made of it follows from the score's terms
+ * (shared/ranking/score-terms.ts), appended by the ranking. Parts are joined with semicolons.
+ */
 export function evidenceSentence(ctx: EvidenceContext): string {
   const head = `${ctx.component}, ${faultWords(ctx.fault)}`;
   const m = ctx.match;
@@ -57,15 +60,6 @@ export function evidenceSentence(ctx: EvidenceContext): string {
   if (ctx.slip && ctx.fault !== 'belt') {
     const pct = 100 * ctx.slip.slip;
     parts.push(`shaft line at ${fmt(ctx.slip.line.order)} (${pct.toFixed(1)} % slip)`);
-  }
-  const onComb = carriers.filter((l) => l.onComb).length;
-  if (onComb > 0) {
-    parts.push(onComb === carriers.length
-      ? 'every line sits on an engine order (the engine makes these too), so it counts little'
-      : `${onComb} of ${carriers.length} on engine orders, the rest off them`);
-  }
-  if (ctx.nearShaftHarmonic !== null) {
-    parts.push(`close to ${ctx.nearShaftHarmonic}× its own shaft speed: check it is not the shaft's own harmonic`);
   }
   if (ctx.approximate) parts.push('bearing unknown: orders from a rule of thumb, approximate');
   return `${head}: ${parts.join('; ')}`;

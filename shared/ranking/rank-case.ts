@@ -5,7 +5,9 @@
  * - probe point: a part whose lines are stronger in the capture probed nearest to it than in the
  *   others gains weight (and loses some when they are weaker there);
  * - A/C condition: lines present only with the A/C clutch engaged point at the compressor;
- * - belt off: what remains in a belt-off capture is engine-born, and counts little;
+ * - belt off: what remains in a belt-off capture is engine-born, and counts little, except for a
+ *   fixed-ratio part (gear, cam or timing-belt driven), which keeps turning with the accessory
+ *   belt off;
  * - after-repair captures never re-rank; their scores are reported beside each suspect.
  */
 import type { RankingEntry } from '../analysis/types';
@@ -56,6 +58,12 @@ function kindOf(drive: DriveDocument, name: string): ComponentKind | 'belt' {
   return c ? c.kind : 'belt';
 }
 
+/** A part that keeps turning with the accessory belt off: driven at a fixed ratio (gear, cam, timing belt), or the crank itself. */
+function turnsWithBeltOff(drive: DriveDocument, name: string): boolean {
+  const c = drive.components.find((x) => x.name.toLowerCase() === name.toLowerCase());
+  return !!c && (c.fixedRatio !== undefined || c.kind === 'crankshaft');
+}
+
 /** Probe-point term: ×(1 ± 0.3) as the part's strongest line is up to 12 dB stronger (weaker) at its own probe point than elsewhere. */
 function probeFactor(component: string, seen: { capture: CaseCapture; entry: RankingEntry }[]): { factor: number; note?: string } {
   const snr = (x: { entry: RankingEntry }) => strongest(x.entry) ?? 0;
@@ -101,7 +109,9 @@ export function rankCase(drive: DriveDocument, captures: readonly CaseCapture[])
   for (const c of before) for (const e of c.entries) if (!keys.has(keyOf(e))) keys.set(keyOf(e), e);
   const suspects: CaseSuspect[] = [];
   for (const [key, sample] of keys) {
-    const seen = beltOn.flatMap((capture) => {
+    // A part that keeps turning with the belt off is seen in the belt-off captures as well.
+    const keepsTurning = turnsWithBeltOff(drive, sample.component);
+    const seen = (keepsTurning ? before : beltOn).flatMap((capture) => {
       const entry = capture.entries.find((e) => keyOf(e) === key);
       return entry ? [{ capture, entry }] : [];
     });
@@ -119,8 +129,10 @@ export function rankCase(drive: DriveDocument, captures: readonly CaseCapture[])
     const ac = acFactor(kindOf(drive, sample.component), seen);
     score *= ac.factor;
     if (ac.note) notes.push(ac.note);
-    const remainsBeltOff = beltOff.some((c) => (c.entries.find((e) => keyOf(e) === key)?.score ?? 0) >= PRESENT_SCORE);
-    if (remainsBeltOff) {
+    const remainsBeltOff = !keepsTurning && beltOff.some((c) => (c.entries.find((e) => keyOf(e) === key)?.score ?? 0) >= PRESENT_SCORE);
+    if (keepsTurning && beltOff.length > 0) {
+      notes.push('driven at a fixed ratio, it keeps turning with the accessory belt off, so the belt-off capture neither clears nor condemns it');
+    } else if (remainsBeltOff) {
       score *= 0.3;
       notes.push('still there with the belt off: engine-born, not this accessory');
     } else if (beltOff.length > 0 && top.entry.score >= PRESENT_SCORE) {

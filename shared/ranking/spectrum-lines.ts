@@ -6,6 +6,7 @@
  */
 import type { OrderSpectrum } from '../analysis/types';
 import { cycleCombGain } from '../dsp/comb-gain';
+import { gaussianPeakOffset } from '../dsp/peaks';
 
 /** A line found in a spectrum. */
 export interface FoundLine {
@@ -16,16 +17,9 @@ export interface FoundLine {
   bin: number;
 }
 
-/** Interpolated order of a local maximum at bin k (Gaussian fit through three bins, Hann-windowed spectra). */
+/** Interpolated order of a local maximum at bin k (the Gaussian fit of shared/dsp/peaks.ts, Hann-windowed spectra). */
 export function interpolateOrder(spectrum: OrderSpectrum, k: number): number {
-  const a = spectrum.amplitude;
-  if (k <= 0 || k >= a.length - 1) return k * spectrum.resolution;
-  const l = Math.log(Math.max(a[k - 1], 1e-300));
-  const c = Math.log(Math.max(a[k], 1e-300));
-  const r = Math.log(Math.max(a[k + 1], 1e-300));
-  const den = l - 2 * c + r;
-  const delta = den < 0 ? Math.max(-0.5, Math.min(0.5, (0.5 * (l - r)) / den)) : 0;
-  return (k + delta) * spectrum.resolution;
+  return (k + gaussianPeakOffset(spectrum.amplitude, k)) * spectrum.resolution;
 }
 
 function snrDbAt(spectrum: OrderSpectrum, k: number): number {

@@ -65,6 +65,13 @@ export const AnalysisSettingsSchema = z
     /** Plausible crank-speed range: sets the reference debounce and the anti-alias design. */
     minRpm: z.number().min(30).max(20_000).default(300),
     maxRpm: z.number().min(60).max(30_000).default(8000),
+    /**
+     * Where crank speed comes from: the reference channel, or the pickup itself (its firing-order
+     * line followed through the spectrogram; for captures without a usable reference).
+     */
+    speedSource: z.enum(['reference', 'pickup']).default('reference'),
+    /** Speed the capture is expected near (idle or held rpm), for reading speed from the pickup; null = the drive's idle rpm, else 800. */
+    expectedRpm: z.number().min(100).max(20_000).nullable().default(null),
   })
   .superRefine((s, ctx) => {
     if (s.maxRpm <= s.minRpm) ctx.addIssue({ code: 'custom', path: ['maxRpm'], message: `maxRpm (${s.maxRpm}) must exceed minRpm (${s.minRpm})` });
@@ -77,6 +84,9 @@ export const AnalysisSettingsSchema = z
       ctx.addIssue({ code: 'custom', path: ['envelopeBand'], message: 'envelope band must be at least 100 Hz wide' });
     }
   });
+
+/** Expected speed when neither the settings nor the drive give one: a common petrol idle [common practice]. */
+export const FALLBACK_EXPECTED_RPM = 800;
 
 export type AnalysisSettings = z.infer<typeof AnalysisSettingsSchema>;
 /** Settings as a caller may give them: every field optional. */

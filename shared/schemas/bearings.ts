@@ -4,6 +4,8 @@
  * pitch diameter, contact angle 0–45°. The client's form and the server's validate() share them.
  */
 import { z } from 'zod';
+import { normaliseDesignation } from '../drive/bearing-table';
+import { codePoints, nameSchema } from './names';
 
 /** Where a row's geometry comes from: a source states it, it was measured on a part, or it is typical. */
 export const BEARING_SOURCES = ['published', 'measured', 'estimated'] as const;
@@ -15,7 +17,9 @@ export type BearingSource = z.infer<typeof BearingSourceSchema>;
 /** A new or edited BearingType row. */
 export const BearingTypeInputSchema = z
   .object({
-    designation: z.string().trim().min(1, { message: 'Enter a designation, e.g. 6203' }).max(40, { message: 'Use at most 40 characters' }),
+    // Checked on the stored form: the designation and its upper-cased key (ß upper-cases to SS) fit 40 characters.
+    designation: nameSchema('The designation', 40)
+      .refine((d) => codePoints(normaliseDesignation(d)) <= 40, { message: 'The designation can be at most 40 characters' }),
     balls: z.number({ message: 'Enter the number of balls' }).int({ message: 'Balls must be a whole number' })
       .min(5, { message: 'Balls must be between 5 and 30' }).max(30, { message: 'Balls must be between 5 and 30' }),
     ballMm: z.number({ message: 'Enter the ball diameter in mm' }).min(1, { message: 'Ball diameter must be 1–40 mm' })

@@ -65,7 +65,7 @@ export const CaptureMetadataSchema = z
   .object({
     /** One entry per channel of the file, channel 1 first (at least the pickup). */
     channels: z.array(ChannelSpecSchema).min(1, { message: 'Describe at least the pickup channel' }).max(8, { message: 'At most 8 channels' }),
-    /** The reference; null when the capture has none (it then fails analysis with `no_reference`). */
+    /** The reference; null when the capture has none (speed is then read from the pickup, issue 20; `speed_unreadable` when it cannot be). */
     reference: ReferenceSpecSchema.nullable().default({ kind: 'cyl1', perCycle: null, polarity: 'auto', tdcOffsetDeg: 0 }),
     sensorKind: SensorKindSchema.default('accelerometer'),
     probePoint: ProbePointSchema,
@@ -123,6 +123,10 @@ export function captureSettings(m: CaptureMetadata): AnalysisSettingsInput {
     out.refPerCycle = m.reference.perCycle;
     out.refPolarity = m.reference.polarity;
     out.tdcOffsetDeg = m.reference.tdcOffsetDeg;
+  } else {
+    // No reference (issue 20 item 2): speed is read from the pickup's firing-order line, near the held rpm when given.
+    out.speedSource = 'pickup';
+    if (m.condition.speed === 'held' && m.condition.heldRpm !== undefined) out.expectedRpm = m.condition.heldRpm;
   }
   return out;
 }

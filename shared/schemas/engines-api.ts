@@ -5,6 +5,7 @@
  */
 import { z } from 'zod';
 import type { ComponentCandidates, DriveDocument, RotatingRing } from '../drive/types';
+import type { EngineChange } from '../drive-io/engine-diff';
 
 /** Sort keys of the engines table; a leading minus sorts descending. */
 export const ENGINE_SORTS = ['name', '-name', 'updatedAt', '-updatedAt'] as const;
@@ -82,6 +83,8 @@ export interface EngineComputedDto {
 export type EngineDetailDto = DriveDocument & {
   id: number;
   notes: string;
+  /** Raised by every save; send it back with a write (409 `stale_write` when the engine moved on). */
+  version: number;
   updatedAt: string;
   computed: EngineComputedDto;
 };
@@ -91,4 +94,26 @@ export interface CsvImportProblemDto {
   line: number;
   field?: string;
   message: string;
+}
+
+/** POST /api/engines/:id/import.csv?preview=1 → { preview }: what the import would change. */
+export interface CsvImportPreviewDto {
+  /** The engine's version the preview was made against (send it with the import). */
+  version: number;
+  /** Data rows read (belts and parts). */
+  rows: number;
+  /** The file held the whole engine (engine fields and belts too), not only the parts. */
+  wholeEngine: boolean;
+  changes: EngineChange[];
+  parts: { added: number; changed: number; removed: number };
+  belts: { added: number; changed: number; removed: number };
+}
+
+/** One save of an engine in its edit history. */
+export interface EngineRevisionDto {
+  version: number;
+  userName: string;
+  action: 'create' | 'update' | 'import' | 'duplicate';
+  at: string;
+  changes: EngineChange[];
 }

@@ -54,6 +54,8 @@ export type OutboxItem = z.infer<typeof OutboxItemSchema>;
 export const OutboxMessageSchema = OutboxItemSchema.extend({
   text: z.string(),
   html: z.string().nullable(),
+  /** Attached files (e.g. the report PDF); download each from /api/outbox/:id/attachments/:index. */
+  attachments: z.array(z.object({ index: z.number().int(), filename: z.string(), contentType: z.string(), size: z.number().int() })).optional(),
 });
 /** `{ id, to, from, subject, text, html, createdAt }` */
 export type OutboxMessage = z.infer<typeof OutboxMessageSchema>;

@@ -16,13 +16,13 @@
  * - belt: a once-per-belt-revolution defect: a tension ripple (belt-pass order and its 2×, 3×)
  *   plus a slap ringing the resonance.
  */
-import type { BeltSpec, ComponentSpec, DriveDocument } from '../drive/types';
+import type { DriveDocument } from '../drive/types';
 import { bearingFactors } from '../drive/bearing-factors';
-import { beltPassOrder, speedRatio } from '../drive/kinematics';
+import { beltPassOrder, beltStages, findBelt, findComponent, speedRatio } from '../drive/kinematics';
 import type { Rng } from './prng';
 import type { PlantedFault } from './options';
 import type { TruthFault } from './truth';
-import { addRings } from './rings';
+import { addRings, type RingMode } from './rings';
 import { timesAtAngles, type SpeedProfile } from './speed-profile';
 
 /** Default amplitude per fault kind (pickup units; the firing-order line is 1.0). */
@@ -34,6 +34,20 @@ export interface FaultShape {
   rollingSlipPct: number;
   impactJitterPct: number;
   resonanceHz: number;
+  /** Structural modes the impacts ring (the realistic generator's several resonances); default one mode at `resonanceHz`, damping 0.05. */
+  modes?: RingMode[];
+  /** Modulation (sideband) depth of a modulated fault; default the kind's fixed depth (0.5 outer ring, 0.8 inner race, 0.7 ball). */
+  modulationDepth?: number;
+}
+
+/** Relative amplitude of each further structural mode an impact rings (the first mode 1). */
+const MODE_WEIGHTS = [1, 0.5, 0.35];
+
+function ring(signal: Float64Array, fs: number, timesS: Float64Array, amps: Float64Array, modes: RingMode[]): void {
+  modes.forEach((mode, k) => {
+    const w = MODE_WEIGHTS[k] ?? 0.25;
+    addRings(signal, fs, timesS, w === 1 ? amps : amps.map((a) => w * a), mode);
+  });
 }
 
 /** Synthesises the planted fault's signal (alone) and its truth. Throws RangeError for a name the drive lacks. */
@@ -41,15 +55,16 @@ export function synthesizeFault(rng: Rng, profile: SpeedProfile, drive: DriveDoc
   const signal = new Float64Array(profile.thetaRev.length);
   const amplitude = fault.amplitude ?? DEFAULT_FAULT_AMPLITUDE[fault.fault];
   const creep = shape.creepPct / 100;
-  const mode = { freqHz: shape.resonanceHz, damping: 0.05 };
+  const modes = shape.modes ?? [{ freqHz: shape.resonanceHz, damping: 0.05 }];
+  const depth = (fixed: number) => shape.modulationDepth ?? fixed;
   if (fault.fault === 'belt') {
-    const belt = findByName(drive.belts, fault.component);
+    const belt = findBelt(drive, fault.component);
     if (!belt) throw new RangeError(`a belt fault needs a belt name; "${fault.component}" is not one of: ${drive.belts.map((b) => b.name).join(', ')}`);
     const driverOrder = speedRatio(drive, belt.driver) * (beltStages(drive, belt.driver) > 0 ? 1 - creep : 1);
     const order = beltPassOrder(drive, belt.name) * driverOrder / speedRatio(drive, belt.driver);
     addHarmonics(signal, rng, profile, order, [amplitude, 0.5 * amplitude, 0.3 * amplitude]);
     const slap = impactTrain(rng, profile, order, shape.impactJitterPct / 100, () => 1.5 * amplitude);
-    addRings(signal, profile.sampleRateHz, slap.timesS, slap.amps, mode);
+    ring(signal, profile.sampleRateHz, slap.timesS, slap.amps, modes);
     return {
       signal,
       truth: {
@@ -60,7 +75,7 @@ export function synthesizeFault(rng: Rng, profile: SpeedProfile, drive: DriveDoc
       },
     };
   }
-  const component = findByName(drive.components, fault.component);
+  const component = findComponent(drive, fault.component);
   if (!component) throw new RangeError(`no component named "${fault.component}"; the drive has: ${drive.components.map((c) => c.name).join(', ')}`);
   const ratio = speedRatio(drive, component.name);
   const partOrder = component.fixedRatio !== undefined || component.kind === 'crankshaft' ? ratio : ratio * (1 - creep);
@@ -78,7 +93,7 @@ export function synthesizeFault(rng: Rng, profile: SpeedProfile, drive: DriveDoc
   }
   const bearing = bearingFactors(component.bearing);
   const f = bearing.factors;
-  const ring = bearing.rotatingRing;
+  const ringTurns = bearing.rotatingRing;
   const s = shape.rollingSlipPct / 100;
   const cage = f.ftf * (1 - s);
   // With n = BPFO + BPFI: fixed race n·FTF·(1 − s) = its factor × (1 − s); turning race
@@ -87,17 +102,17 @@ export function synthesizeFault(rng: Rng, profile: SpeedProfile, drive: DriveDoc
   switch (fault.fault) {
     case 'outer_race':
       factor = f.bpfo; label = 'BPFO 1x';
-      rate = ring === 'outer' ? f.bpfo + f.bpfi * s : f.bpfo * (1 - s);
-      if (ring === 'outer') modulation = { order: partOrder, depth: 0.5 };
+      rate = ringTurns === 'outer' ? f.bpfo + f.bpfi * s : f.bpfo * (1 - s);
+      if (ringTurns === 'outer') modulation = { order: partOrder, depth: depth(0.5) };
       break;
     case 'inner_race':
       factor = f.bpfi; label = 'BPFI 1x';
-      rate = ring === 'inner' ? f.bpfi + f.bpfo * s : f.bpfi * (1 - s);
-      if (ring === 'inner') modulation = { order: partOrder, depth: 0.8 };
+      rate = ringTurns === 'inner' ? f.bpfi + f.bpfo * s : f.bpfi * (1 - s);
+      if (ringTurns === 'inner') modulation = { order: partOrder, depth: depth(0.8) };
       break;
     case 'ball':
       factor = 2 * f.bsf; label = '2xBSF 1x'; rate = 2 * f.bsf * (1 - s);
-      modulation = { order: cage * partOrder, depth: 0.7 };
+      modulation = { order: cage * partOrder, depth: depth(0.7) };
       break;
     default:
       factor = f.ftf; label = 'FTF 1x'; rate = cage;
@@ -106,13 +121,13 @@ export function synthesizeFault(rng: Rng, profile: SpeedProfile, drive: DriveDoc
   const phase = rng.between(0, 2 * Math.PI);
   const train = impactTrain(rng, profile, lineOrder, shape.impactJitterPct / 100, (theta) =>
     amplitude * (modulation ? 1 + modulation.depth * Math.cos(2 * Math.PI * modulation.order * theta + phase) : 1));
-  addRings(signal, profile.sampleRateHz, train.timesS, train.amps, mode);
+  ring(signal, profile.sampleRateHz, train.timesS, train.amps, modes);
   return {
     signal,
     truth: {
       ...base, rollingSlipPct: shape.rollingSlipPct, line: label, spectrum: 'envelope', nominalOrder: ratio * factor,
       plantedOrder: lineOrder, bearingLineOrder: lineOrder, modulationOrder: modulation ? modulation.order : null,
-      factors: { ...f }, rotatingRing: ring,
+      factors: { ...f }, rotatingRing: ringTurns,
     },
   };
 }
@@ -149,25 +164,4 @@ function addHarmonics(out: Float64Array, rng: Rng, profile: SpeedProfile, order:
     for (let k = 0; k < amplitudes.length; k++) v += amplitudes[k] * Math.cos(2 * Math.PI * (k + 1) * order * thetaRev[i] + phases[k]);
     out[i] += v;
   }
-}
-
-/** Number of friction-belt stages between the crank and a component (each adds creep). */
-export function beltStages(drive: DriveDocument, name: string): number {
-  let stages = 0;
-  let component = findByName(drive.components, name);
-  const seen = new Set<string>();
-  while (component && component.kind !== 'crankshaft' && component.fixedRatio === undefined && component.belt) {
-    const key = component.name.toLowerCase();
-    if (seen.has(key)) break;
-    seen.add(key);
-    stages++;
-    const belt = findByName(drive.belts, component.belt);
-    component = belt ? findByName(drive.components, belt.driver) : undefined;
-  }
-  return stages;
-}
-
-function findByName<T extends ComponentSpec | BeltSpec>(items: readonly T[], name: string): T | undefined {
-  const key = name.trim().toLowerCase();
-  return items.find((item) => item.name.trim().toLowerCase() === key);
 }

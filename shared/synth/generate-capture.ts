@@ -18,6 +18,9 @@ import { addEngineVibration, addInjectorTicks, defaultInjectorTicks, describeTic
 import { synthesizeFault } from './fault-signal';
 import { addDistractor } from './distractor';
 import { meanSquare } from './rings';
+import { addCombustionVariation, addHealthyShaftLines, MODULATION_DEPTH_RANGE, structuralModes } from './realism';
+import { bearingFactors } from '../drive/bearing-factors';
+import { findComponent } from '../drive/kinematics';
 
 /** A generated capture: channel 1 the reference, 2 the pickup, 3 the cam (when asked). */
 export interface GeneratedCapture {
@@ -58,6 +61,9 @@ export function generateCapture(input: GenerateOptionsInput): GeneratedCapture {
   // One fork per signal part, always in this order, so options of one part never shift another's draws.
   const root = createRng(o.seed);
   const [speedRng, refRng, camRng, engineRng, tickRng, faultRng, distractorRng, noiseRng, paramRng] = Array.from({ length: 9 }, () => root.fork());
+  // The realistic generator's draws come from a tenth fork, so today's captures stay sample for sample.
+  const realRng = root.fork();
+  const real = o.realism === 'real';
   const fs = o.sampleRateHz;
   const samples = Math.round(o.durationS * fs);
   const rpm = o.rpm ?? drive.idleRpm ?? 780;
@@ -81,8 +87,16 @@ export function generateCapture(input: GenerateOptionsInput): GeneratedCapture {
   const tickSignal = new Float64Array(samples);
   addInjectorTicks(tickSignal, tickRng, profile, ticks, tickRingHz);
 
+  const modes = real ? structuralModes(realRng, resonanceHz, fs) : undefined;
+  if (real) {
+    addCombustionVariation(engine, realRng, profile, drive.cylinders, o.engineLevel, modes![1]);
+    addHealthyShaftLines(engine, realRng, profile, drive, o.creepPct);
+  }
   const planted = o.fault
-    ? synthesizeFault(faultRng, profile, drive, o.fault, { creepPct: o.creepPct, rollingSlipPct, impactJitterPct: o.impactJitterPct, resonanceHz })
+    ? synthesizeFault(faultRng, profile, drive, o.fault, {
+      creepPct: o.creepPct, rollingSlipPct, impactJitterPct: o.impactJitterPct, resonanceHz, modes,
+      modulationDepth: real ? drawDepth(realRng, drive, o.fault) : undefined,
+    })
     : null;
   const distractorSignal = new Float64Array(samples);
   const distractor = o.distractor ? addDistractor(distractorSignal, distractorRng, profile, drive, o.distractor, resonanceHz) : null;
@@ -163,6 +177,16 @@ function loudestTick(ticks: CaptureTruth['ticks'], o: GenerateOptions, drive: Dr
   const candidates = new Set<number>();
   for (let k = 0; k * period < 720 - 1e-9; k++) candidates.add(slotOf(loud.angleDeg + k * period, drive.firingOrder).slotCylinder);
   return { ...loud, candidates: [...candidates].sort((a, b) => a - b), phaseResolved: period >= 720 };
+}
+
+/** A modulation depth over the published-like range of the planted fault's kind (realistic generator). */
+function drawDepth(rng: ReturnType<typeof createRng>, drive: DriveDocument, fault: NonNullable<GenerateOptions['fault']>): number | undefined {
+  const c = findComponent(drive, fault.component);
+  const ring = c ? bearingFactors(c.bearing).rotatingRing : 'inner';
+  const range = fault.fault === 'inner_race' ? MODULATION_DEPTH_RANGE.inner_race
+    : fault.fault === 'ball' ? MODULATION_DEPTH_RANGE.ball
+      : fault.fault === 'outer_race' && ring === 'outer' ? MODULATION_DEPTH_RANGE.outer_ring : null;
+  return range ? rng.between(range[0], range[1]) : undefined;
 }
 
 function checkDrive(drive: DriveDocument): void {

@@ -99,6 +99,12 @@ export const GenerateOptionsSchema = z.object({
   distractor: DistractorSchema.nullable().default(null),
   resonanceHz: z.number().min(500).max(20000).nullable().default(null),
   engineLevel: z.number().min(0).max(100).default(1),
+  /**
+   * 'today': the generator as it has been (one resonance, fixed sideband depths, no healthy shaft
+   * lines, identical combustion cycles), so older sweeps can be rerun; 'real': closer to real
+   * engines (shared/synth/realism.ts).
+   */
+  realism: z.enum(['today', 'real']).default('today'),
 }).refine((o) => !(o.refKind === 'wheel' && o.refPerCycle !== null), {
   error: 'refPerCycle draws ignition-like pulses; it cannot be combined with refKind "wheel"', path: ['refPerCycle'],
 });

@@ -1,5 +1,9 @@
 import type { NavSection } from '../../shared/auth/roles';
 
+/** The five views of Capture review. */
+export const CAPTURE_VIEWS = ['orders', 'cycle', 'spectrogram', 'speed', 'listen'] as const;
+export type CaptureView = (typeof CAPTURE_VIEWS)[number];
+
 /** Every client URL in one place; links and redirects use these, never hand-typed strings. */
 export const paths = {
   home: '/',
@@ -10,6 +14,12 @@ export const paths = {
   resetPassword: '/reset-password',
   resetPasswordComplete: (token: string) => `/reset-password/${encodeURIComponent(token)}`,
   cases: '/cases',
+  caseNew: '/cases/new',
+  case: (id: number | string) => `/cases/${id}`,
+  captureReview: (caseId: number | string, captureId: number | string, view: CaptureView = 'orders') => `/cases/${caseId}/captures/${captureId}/${view}`,
+  caseCompare: (id: number | string) => `/cases/${id}/compare`,
+  caseReport: (id: number | string, copy: 'advisor' | 'customer' = 'advisor') => `/cases/${id}/report${copy === 'customer' ? '?copy=customer' : ''}`,
+  caseRecord: (caseId: number | string) => `/cases/${caseId}/record`,
   driveLibrary: '/drive-library',
   bearings: '/bearings',
   capturePlanner: '/capture-planner',

@@ -5,6 +5,11 @@ import { paths } from './paths';
 import { AppLayout, appLayoutLoader } from './routes/app-layout';
 import { BearingsRoute, bearingsLoader } from './routes/bearings';
 import { CapturePlannerRoute } from './routes/capture-planner';
+import { CaptureReviewRoute, captureReviewLoader } from './routes/capture-review';
+import { CaseRoute, caseLoader } from './routes/case';
+import { CaseCompareRoute } from './routes/case-compare';
+import { CaseNewRoute } from './routes/case-new';
+import { CaseReportRoute } from './routes/case-report';
 import { CasesRoute } from './routes/cases';
 import { DriveLibraryRoute } from './routes/drive-library';
 import { EngineRoute, engineLoader } from './routes/engine';
@@ -13,6 +18,7 @@ import { NotFoundRoute } from './routes/not-found';
 import { OutboxMessageRoute, outboxMessageLoader } from './routes/outbox-message';
 import { OutboxIndexRoute, OutboxRoute, outboxLoader } from './routes/outbox';
 import { PublicLayout } from './routes/public-layout';
+import { RecordRoute } from './routes/record';
 import { ResetPasswordCompleteRoute } from './routes/reset-password-complete';
 import { ResetPasswordRoute } from './routes/reset-password';
 import { RootLayout } from './routes/root';
@@ -59,6 +65,12 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
               children: [
                 { index: true, loader: () => redirect(paths.cases) },
                 { path: paths.cases, element: <CasesRoute /> },
+                { path: paths.caseNew, element: <CaseNewRoute /> },
+                { path: '/cases/:caseId', element: <CaseRoute />, loader: caseLoader(queryClient) },
+                { path: '/cases/:caseId/captures/:captureId/:view?', element: <CaptureReviewRoute />, loader: captureReviewLoader(queryClient) },
+                { path: '/cases/:caseId/compare', element: <CaseCompareRoute />, loader: caseLoader(queryClient) },
+                { path: '/cases/:caseId/report', element: <CaseReportRoute />, loader: caseLoader(queryClient) },
+                { path: '/cases/:caseId/record', element: <RecordRoute />, handle: { fullSafetyNote: true } },
                 { path: paths.driveLibrary, element: <DriveLibraryRoute /> },
                 { path: `${paths.driveLibrary}/:engineId`, element: <EngineRoute />, loader: engineLoader(queryClient) },
                 { path: paths.bearings, element: <BearingsRoute />, loader: bearingsLoader(queryClient) },

@@ -91,6 +91,28 @@ async function getCsrfToken(): Promise<string> {
   return csrfPending;
 }
 
+/** The CSRF token for a request the helpers below cannot send (a multipart upload with progress). */
+export function currentCsrfToken(): Promise<string> {
+  return getCsrfToken();
+}
+
+/** The ApiError of a non-2xx answer whose body was read as text (used by XHR uploads). */
+export function apiErrorFrom(status: number, statusText: string, text: string): ApiError {
+  let parsed: { error?: { code?: unknown; message?: unknown; details?: unknown } } | undefined;
+  try {
+    parsed = text ? JSON.parse(text) : undefined;
+  } catch {
+    parsed = undefined;
+  }
+  const error = parsed?.error;
+  return new ApiError(
+    status,
+    typeof error?.code === 'string' ? error.code : `http_${status}`,
+    typeof error?.message === 'string' ? error.message : `The server answered ${status} ${statusText}.`.trim(),
+    error?.details,
+  );
+}
+
 type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 
 interface RequestOptions {
@@ -163,4 +185,30 @@ export const api = {
  */
 export function isUnauthenticated(error: unknown): boolean {
   return error instanceof ApiError && error.status === 401 && error.code !== 'invalid_credentials';
+}
+
+/**
+ * POSTs a multipart form (file uploads, e.g. a recording) with the session cookie and the CSRF
+ * token; the browser sets the multipart boundary. Resolves to the parsed JSON body; throws ApiError
+ * like the JSON helpers (and retries once on a stale CSRF token).
+ */
+export async function postForm<T>(path: string, form: FormData): Promise<T> {
+  const attempt = async (): Promise<Response> => {
+    try {
+      return await fetch(toUrl(path), { method: 'POST', credentials: 'same-origin', headers: { accept: 'application/json', [CSRF_HEADER]: await getCsrfToken() }, body: form });
+    } catch {
+      throw new ApiError(0, 'network_error', 'The server did not answer. Check that Crankwise is running and try again.');
+    }
+  };
+  let response = await attempt();
+  let parsed = (await response.json().catch(() => undefined)) as { error?: { code?: string; message?: string; details?: unknown } } | undefined;
+  if (response.status === 403 && parsed?.error?.code === 'csrf_invalid') {
+    resetCsrfToken();
+    response = await attempt();
+    parsed = (await response.json().catch(() => undefined)) as typeof parsed;
+  }
+  if (!response.ok) {
+    throw new ApiError(response.status, parsed?.error?.code ?? `http_${response.status}`, parsed?.error?.message ?? `The server answered ${response.status}.`, parsed?.error?.details);
+  }
+  return parsed as T;
 }

@@ -11,12 +11,18 @@ import { migration as createBearingTypes } from './202612020400-create-bearing-t
 import { migration as createEngines } from './202612020401-create-engines';
 import { migration as createBelts } from './202612020402-create-belts';
 import { migration as createDriveComponents } from './202612020403-create-drive-components';
+import { migration as addShopSettings } from './202612030745-add-shop-settings';
+import { migration as addEngineVersion } from './202612030746-add-engine-version';
+import { migration as createEngineRevisions } from './202612030747-create-engine-revisions';
+import { migration as addComponentMeasured } from './202612030748-add-component-measured';
 import { migration as createCases } from './202612030800-create-cases';
 import { migration as createCaseEvents } from './202612030801-create-case-events';
 import { migration as createCaptures } from './202612030802-create-captures';
 import { migration as createAnalyses } from './202612030803-create-analyses';
 import { migration as createAnalysisSeries } from './202612030804-create-analysis-series';
 import { migration as createFindings } from './202612030805-create-findings';
+import { migration as addMailAttachments } from './202612030900-add-mail-attachments';
+import { migration as createRatioCalibrations } from './202612030900-create-ratio-calibrations';
 
 /** The ordered list umzug runs. */
 export const migrations: MigrationModule[] = [
@@ -30,10 +36,16 @@ export const migrations: MigrationModule[] = [
   createEngines,
   createBelts,
   createDriveComponents,
+  addShopSettings,
+  addEngineVersion,
+  createEngineRevisions,
+  addComponentMeasured,
   createCases,
   createCaseEvents,
   createCaptures,
   createAnalyses,
   createAnalysisSeries,
   createFindings,
+  addMailAttachments,
+  createRatioCalibrations,
 ];

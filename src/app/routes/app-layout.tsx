@@ -1,7 +1,7 @@
-import { Suspense } from 'react';
+import { Suspense, useEffect, useState } from 'react';
 import type { QueryClient } from '@tanstack/react-query';
 import { useSuspenseQuery } from '@tanstack/react-query';
-import { Form, NavLink, Outlet, useMatches, useNavigation, type LoaderFunctionArgs } from 'react-router-dom';
+import { Form, NavLink, Outlet, useLocation, useMatches, useNavigation, type LoaderFunctionArgs } from 'react-router-dom';
 import { navSectionsFor, NAV_LABELS, ROLE_LABELS, type NavSection } from '../../../shared/auth/roles';
 import type { UserDto } from '../../../shared/schemas/users';
 import { Badge } from '../../components/ui/badge';
@@ -29,15 +29,15 @@ function NavGroup({ label, sections }: { label: string; sections: NavSection[] }
   if (sections.length === 0) return null;
   return (
     <div>
-      <p className="hidden px-3 pb-1 text-[0.7rem] font-semibold uppercase tracking-wider text-muted-foreground/80 md:block">{label}</p>
-      <ul className="flex gap-0.5 md:grid">
+      <p className="px-3 pb-1 text-[0.7rem] font-semibold uppercase tracking-wider text-muted-foreground/80">{label}</p>
+      <ul className="grid gap-0.5">
         {sections.map((section) => (
           <li key={section}>
             <NavLink
               to={sectionPaths[section]}
               className={({ isActive }) =>
                 cn(
-                  'flex items-center gap-2.5 whitespace-nowrap rounded-md px-3 py-1.5 text-sm text-foreground/80 transition-colors hover:bg-card hover:text-foreground',
+                  'flex items-center gap-2.5 whitespace-nowrap rounded-md px-3 py-2.5 text-base text-foreground/80 transition-colors hover:bg-card hover:text-foreground md:py-1.5 md:text-sm',
                   'focus-visible:outline-2 focus-visible:outline-ring',
                   isActive && 'bg-card font-medium text-foreground shadow-xs ring-1 ring-border',
                 )
@@ -89,9 +89,13 @@ export function AppLayout() {
   const navigation = useNavigation();
   // A page that shows the full cautions itself (route handle `fullSafetyNote`) needs no footer copy.
   const showsFullSafetyNote = useMatches().some((m) => (m.handle as { fullSafetyNote?: boolean } | undefined)?.fullSafetyNote);
+  // On a phone the sections sit behind a Menu button (every one reachable, none off-screen); it closes on navigation.
+  const [menuOpen, setMenuOpen] = useState(false);
+  const { pathname } = useLocation();
+  useEffect(() => setMenuOpen(false), [pathname]);
   return (
     <div className="flex min-h-screen flex-col md:flex-row">
-      <aside className="shrink-0 border-b border-border bg-sidebar md:w-60 md:border-r md:border-b-0">
+      <aside className="shrink-0 print:hidden border-b border-border bg-sidebar md:w-60 md:border-r md:border-b-0">
         <div className="flex flex-col gap-3 px-3 py-3 md:sticky md:top-0 md:h-screen md:gap-5 md:py-4">
           <div className="flex items-start justify-between gap-3 px-2">
             <div className="min-w-0">
@@ -101,11 +105,17 @@ export function AppLayout() {
                 {user.shop.isDemo ? <Badge variant="warning">Demo shop</Badge> : null}
               </div>
             </div>
-            <SignOutButton className="md:hidden" />
+            <Button type="button" variant="outline" size="sm" className="md:hidden" aria-expanded={menuOpen} aria-controls="main-nav"
+              onClick={() => setMenuOpen((o) => !o)}>
+              {menuOpen ? 'Close menu' : 'Menu'}
+            </Button>
           </div>
-          <nav aria-label="Main" className="flex gap-1 overflow-x-auto md:grid md:gap-4 md:overflow-visible">
+          <nav id="main-nav" aria-label="Main" className={cn('gap-4 md:grid', menuOpen ? 'grid' : 'hidden')}>
             <NavGroup label="Workbench" sections={work} />
             <NavGroup label="Shop" sections={shop} />
+            <div className="md:hidden">
+              <UserBlock user={user} />
+            </div>
           </nav>
           <div className="mt-auto hidden md:block">
             <UserBlock user={user} />
@@ -123,7 +133,7 @@ export function AppLayout() {
           </Suspense>
         </main>
         {showsFullSafetyNote ? null : (
-          <footer className="mx-auto w-full max-w-6xl px-4 pb-6 sm:px-8">
+          <footer className="mx-auto w-full max-w-6xl px-4 pb-6 sm:px-8 print:hidden">
             <SafetyNote compact />
           </footer>
         )}

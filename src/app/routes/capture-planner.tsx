@@ -1,19 +1,21 @@
-import { NavIcon } from '../nav-icons';
-import { PlaceholderPage } from './placeholder';
+import { AnalysisSettingsSchema } from '../../../shared/schemas/analysis-settings';
+import { useQuery } from '@tanstack/react-query';
+import { PageHeader } from '../../components/ui/page-header';
+import { CapturePlannerForm } from '../../features/capture-planner/components/capture-planner-form';
+import { shopSettingsQueryOptions } from '../../features/shop-setup/api/shop-settings-queries';
 import { SafetyNote } from './safety-note';
 
-/** Capture planner: where probe points and engine conditions are planned; the cautions belong here. */
+/** Capture planner: how long to record, the scope setting and the sample rate, with the working; the full cautions. */
 export function CapturePlannerRoute() {
+  const { data } = useQuery(shopSettingsQueryOptions());
+  const envelopeTopHz = data?.analysisDefaults.envelopeMaxHz ?? AnalysisSettingsSchema.parse({}).envelopeMaxHz;
   return (
-    <PlaceholderPage
-      icon={<NavIcon section="capture-planner" className="size-10" />}
-      title="Capture planner"
-      description="Plan the recordings for a case: probe points near each suspect, engine conditions, and the reference channel."
-      emptyTitle="No capture plans yet"
-      after={<SafetyNote />}
-    >
-      The planner will suggest probe points on stationary housings near each part of the drive, the engine conditions worth
-      recording (idle, held rpm, A/C clutch on and off, a short belt-off run), and how to wire the reference and the pickup.
-    </PlaceholderPage>
+    <>
+      <PageHeader title="Capture planner" description="How long to record, how to set the scope and the sample rate, before you go to the car." />
+      <div className="mb-6">
+        <SafetyNote />
+      </div>
+      <CapturePlannerForm key={envelopeTopHz} envelopeTopHz={envelopeTopHz} />
+    </>
   );
 }

@@ -1,28 +1,29 @@
 import type { QueryClient } from '@tanstack/react-query';
+import { useQueryClient, useSuspenseQuery } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
+import { PageHeader } from '../../components/ui/page-header';
+import { meQueryOptions } from '../../features/auth/api/auth-queries';
+import { shopSettingsQueryOptions } from '../../features/shop-setup/api/shop-settings-queries';
+import { ShopSettingsForm } from '../../features/shop-setup/components/shop-settings-form';
 import { requireSection } from '../route-guards';
-import { NavIcon } from '../nav-icons';
-import { PlaceholderPage } from './placeholder';
 
-/** Admins only. */
+/** Admins only; warms the settings. */
 export const shopSetupLoader =
   (queryClient: QueryClient) =>
   async ({ request }: LoaderFunctionArgs) => {
     await requireSection(queryClient, request, 'shop-setup');
+    await queryClient.ensureQueryData(shopSettingsQueryOptions());
     return null;
   };
 
 /** Shop setup: the shop's own settings. */
 export function ShopSetupRoute() {
+  const { data } = useSuspenseQuery(shopSettingsQueryOptions());
+  const queryClient = useQueryClient();
   return (
-    <PlaceholderPage
-      icon={<NavIcon section="shop-setup" className="size-10" />}
-      title="Shop setup"
-      description="Your shop's name and its defaults for new cases and captures."
-      emptyTitle="No shop settings to change yet"
-    >
-      Shop-wide defaults will be set here: the usual reference kind and channels, pickup sensitivity and units, and the report's
-      letterhead. Users and roles are managed on the Team page.
-    </PlaceholderPage>
+    <>
+      <PageHeader title="Shop setup" description="Your shop's name and report header, defaults for new cases and analyses, and how pulleys are measured." />
+      <ShopSettingsForm settings={data} onSaved={() => void queryClient.invalidateQueries({ queryKey: meQueryOptions().queryKey })} />
+    </>
   );
 }

@@ -1,8 +1,8 @@
-import { useId, type InputHTMLAttributes } from 'react';
+import { useId, type ComponentProps } from 'react';
 import { Input } from './input';
 import { Label } from './label';
 
-export interface FieldProps extends InputHTMLAttributes<HTMLInputElement> {
+export interface FieldProps extends ComponentProps<'input'> {
   label: string;
   /** The message for this field (client check or the server's `details`); shown under the input. */
   error?: string;

@@ -165,7 +165,7 @@ describe('me and sign-out', () => {
     expect((await a.get('/api/auth/me')).status).toBe(401);
   });
 
-  it('stops a deactivated user: sign-in refused with the same 401 and existing sessions end', async () => {
+  it('stops a deactivated user: with the right password told the account is deactivated (403), with a wrong one the same 401 as anyone; sessions end', async () => {
     const victim = shop.users.tech;
     const session = await t.signIn(victim.email, victim.password);
     const admin = await t.signIn(shop.users.admin.email, shop.users.admin.password);
@@ -174,8 +174,13 @@ describe('me and sign-out', () => {
     expect(res.body.user.active).toBe(false);
     expect((await session.get('/api/auth/me')).status).toBe(401);
     const again = await (await t.agent()).post('/api/auth/sign-in', { email: victim.email, password: victim.password });
-    expect(again.status).toBe(401);
-    expect(again.body.error.code).toBe('invalid_credentials');
+    expect(again.status).toBe(403);
+    expect(again.body.error.code).toBe('account_deactivated');
+    expect(again.body.error.message).toMatch(/deactivated.*admin/);
+    const wrong = await (await t.agent()).post('/api/auth/sign-in', { email: victim.email, password: 'not-the-password-1' });
+    const nobody = await (await t.agent()).post('/api/auth/sign-in', { email: `nobody.${Date.now()}@example.test`, password: 'not-the-password-1' });
+    expect([wrong.status, wrong.body.error.code, wrong.body.error.message]).toEqual([nobody.status, nobody.body.error.code, nobody.body.error.message]);
+    expect(wrong.status).toBe(401);
     await admin.patch(`/api/users/${victim.user.id}`, { active: true });
   });
 });

@@ -30,7 +30,7 @@ describe('importComponentCsv', () => {
     expect(lines).toEqual(new Set([3, 4, 5, 6]));
     expect(r.problems.find((p) => p.line === 3)?.field).toBe('pulleyMm');
     expect(r.problems.find((p) => p.line === 6)?.field).toBe('ballMm');
-    expect(r.problems.find((p) => p.line === 4)?.message).toMatch(/already used/);
+    expect(r.problems.find((p) => p.line === 4)?.message).toMatch(/already has the name/);
     expect(r.problems.find((p) => p.line === 5)?.message).toMatch(/crankshaft/);
   });
 

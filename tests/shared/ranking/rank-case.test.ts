@@ -99,3 +99,30 @@ describe('rankCase', () => {
     expect(a[0].afterRepairScore).toBeNull();
   }, 30_000);
 });
+
+describe('rankCase with a part that keeps turning with the belt off', () => {
+  // The diesel's vacuum pump is cam-driven (fixedRatio 0.5): taking the accessory belt off does
+  // not stop it, so a pattern still there with the belt off says nothing against it.
+  const diesel = drives.i4Diesel;
+  const entry = (component: string, score: number): RankingEntry => ({
+    component, target: 'component', fault: 'outer_race', order: 1, nominalOrder: 1, score, slipPct: null,
+    evidence: `${component}, outer race`, indistinguishableFrom: [], approximate: false, matched: [],
+  });
+
+  it('does not scale a fixed-ratio part down as engine-born, while a belt-driven part still is', () => {
+    const on = [entry('Vacuum pump', 0.7), entry('Alternator', 0.6)];
+    const off = [entry('Vacuum pump', 0.68), entry('Alternator', 0.55)];
+    const ranked = rankCase(diesel, [
+      { captureId: 'on', entries: on, phase: 'before' },
+      { captureId: 'off', entries: off, phase: 'before', beltOff: true },
+    ]);
+    const pump = find(ranked, 'Vacuum pump', 'outer_race');
+    expect(pump.engineBorn).toBe(false);
+    expect(pump.score).toBeCloseTo(0.7, 9);
+    expect(pump.notes.join(' ')).toMatch(/keeps turning with the accessory belt off/);
+    const alt = find(ranked, 'Alternator', 'outer_race');
+    expect(alt.engineBorn).toBe(true);
+    expect(alt.score).toBeLessThan(0.3);
+    expect(ranked[0].component).toBe('Vacuum pump');
+  });
+});

@@ -1,7 +1,9 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { ROLES } from '../../../shared/auth/roles';
+import { http, HttpResponse } from 'msw';
 import { makeUser } from '../helpers/factories';
+import { server } from '../helpers/msw-server';
 import { renderApp } from '../helpers/render-app';
 
 async function navLinks(): Promise<string[]> {
@@ -47,10 +49,15 @@ describe('app navigation', () => {
     expect(note.textContent).toMatch(/Electric cooling fans can start with the engine off/);
   });
 
-  it('shows the full cautions on the capture planner instead of the footer note', async () => {
+  it('shows the full cautions on the capture planner instead of the footer note, and plans a capture with its working', async () => {
+    server.use(http.get('*/api/shop/settings', () => HttpResponse.json({ error: { code: 'not_found', message: 'no settings' } }, { status: 404 })));
     renderApp('/capture-planner', { user: makeUser({ role: 'tech' }) });
     expect(await screen.findByText(/Electric cooling fans can start on their own/)).toBeTruthy();
     expect(screen.getByText(/attach pickups with the\s+engine off/)).toBeTruthy();
     expect(screen.getAllByRole('note')).toHaveLength(1);
+    // 32 revolutions at 750 rpm = 2.56 s; 2.5 × 9000 Hz = 22.5 kHz → 32 kHz.
+    const figures = within(screen.getByText('Record at least').closest('dl') as HTMLElement);
+    expect(figures.getByText('2.56')).toBeTruthy();
+    expect(figures.getByText('32')).toBeTruthy();
   });
 });

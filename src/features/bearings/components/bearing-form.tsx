@@ -10,11 +10,19 @@ import { useSaveBearing } from '../api/use-bearing-mutations';
 const blank = { designation: '', balls: '', ballMm: '', pitchMm: '', contactDeg: '0', source: 'measured', notes: '' };
 
 /** Adds or edits one bearing type; checked with the same schema as the server. */
-export function BearingForm({ bearing, onDone }: { bearing?: BearingTypeDto; onDone: () => void }) {
-  const [values, setValues] = useState(() => bearing
-    ? { designation: bearing.designation, balls: String(bearing.balls), ballMm: String(bearing.ballMm), pitchMm: String(bearing.pitchMm),
-      contactDeg: String(bearing.contactDeg), source: bearing.source, notes: bearing.notes }
-    : blank);
+export function BearingForm({ bearing, copyOf, onDone }: {
+  bearing?: BearingTypeDto;
+  /** A built-in row to start a new row from (saved as the shop's own). */
+  copyOf?: Pick<BearingTypeDto, 'designation' | 'balls' | 'ballMm' | 'pitchMm' | 'contactDeg' | 'source' | 'notes'>;
+  onDone: () => void;
+}) {
+  const [values, setValues] = useState(() => {
+    const from = bearing ?? copyOf;
+    return from
+      ? { designation: from.designation, balls: String(from.balls), ballMm: String(Number(from.ballMm.toPrecision(12))), pitchMm: String(Number(from.pitchMm.toPrecision(12))),
+        contactDeg: String(from.contactDeg), source: from.source, notes: from.notes }
+      : blank;
+  });
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [message, setMessage] = useState<string | undefined>();
   const save = useSaveBearing();

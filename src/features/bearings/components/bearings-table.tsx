@@ -1,5 +1,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
+import { factorsFromGeometry } from '../../../../shared/drive/bearing-factors';
+import { BUILT_IN_BEARINGS, normaliseDesignation, type BearingGeometry } from '../../../../shared/drive/bearing-table';
 import type { BearingSource, BearingTypeDto } from '../../../../shared/schemas/bearings';
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
@@ -27,14 +29,18 @@ const n = (v: number, d: number) => <span className="font-mono tabular-nums">{v.
 export function BearingsTable({ canWrite }: { canWrite: boolean }) {
   const { data, isPending } = useQuery(bearingsQueryOptions());
   const [editing, setEditing] = useState<BearingTypeDto | 'new' | null>(null);
+  const [copying, setCopying] = useState<BearingGeometry | null>(null);
   const [deleting, setDeleting] = useState<BearingTypeDto | null>(null);
   const remove = useDeleteBearing();
   if (isPending) return <LoadingState label="Loading bearings…" />;
   const items = data?.items ?? [];
+  // Built-in designations the shop's table does not override: listed too, to be copied and edited.
+  const own = new Set(items.map((b) => normaliseDesignation(b.designation)));
+  const builtIns = BUILT_IN_BEARINGS.filter((b) => !own.has(normaliseDesignation(b.designation)));
   return (
     <div className="grid gap-4">
       {canWrite ? <div className="flex justify-end"><Button onClick={() => setEditing('new')}>Add bearing</Button></div> : null}
-      {items.length === 0 ? <EmptyState title="No bearings in the table">Add the bearings your engines use by designation.</EmptyState> : (
+      {items.length === 0 && builtIns.length === 0 ? <EmptyState title="No bearings in the table">Add the bearings your engines use by designation.</EmptyState> : (
         <Table aria-label="Bearings">
           <TableHeader>
             <TableRow>
@@ -49,7 +55,7 @@ export function BearingsTable({ canWrite }: { canWrite: boolean }) {
               <TableHead className="text-right">BPFI</TableHead>
               <TableHead className="text-right">BSF</TableHead>
               <TableHead className="text-right">Used by</TableHead>
-              <TableHead>Notes</TableHead>
+              <TableHead className="min-w-72">Notes</TableHead>
               {canWrite ? <TableHead className="sr-only">Actions</TableHead> : null}
             </TableRow>
           </TableHeader>
@@ -67,7 +73,7 @@ export function BearingsTable({ canWrite }: { canWrite: boolean }) {
                 <TableCell className="text-right">{n(b.factors.bpfi, 4)}</TableCell>
                 <TableCell className="text-right">{n(b.factors.bsf, 4)}</TableCell>
                 <TableCell className="text-right">{n(b.usedBy, 0)}</TableCell>
-                <TableCell className="max-w-72 text-xs text-muted-foreground">{b.notes}</TableCell>
+                <TableCell className="min-w-72 max-w-md whitespace-normal text-sm leading-snug">{b.notes || <span className="text-muted-foreground">—</span>}</TableCell>
                 {canWrite ? (
                   <TableCell>
                     <div className="flex gap-1">
@@ -78,13 +84,41 @@ export function BearingsTable({ canWrite }: { canWrite: boolean }) {
                 ) : null}
               </TableRow>
             ))}
+            {builtIns.map((b) => {
+              const f = factorsFromGeometry(b, 'inner');
+              return (
+                <TableRow key={`built-in-${b.designation}`} className="bg-muted/30">
+                  <TableCell className="font-medium">{b.designation} <Badge variant="outline">built-in</Badge></TableCell>
+                  <TableCell className="text-right">{n(b.balls, 0)}</TableCell>
+                  <TableCell className="text-right">{n(b.ballMm, 3)}</TableCell>
+                  <TableCell className="text-right">{n(b.pitchMm, 3)}</TableCell>
+                  <TableCell className="text-right">{n(b.contactDeg, 1)}</TableCell>
+                  <TableCell><SourceBadge source={b.source} /></TableCell>
+                  <TableCell className="border-l border-border text-right">{n(f.ftf, 4)}</TableCell>
+                  <TableCell className="text-right">{n(f.bpfo, 4)}</TableCell>
+                  <TableCell className="text-right">{n(f.bpfi, 4)}</TableCell>
+                  <TableCell className="text-right">{n(f.bsf, 4)}</TableCell>
+                  <TableCell className="text-right text-muted-foreground">—</TableCell>
+                  <TableCell className="min-w-72 max-w-md whitespace-normal text-sm leading-snug">{b.note}</TableCell>
+                  {canWrite ? (
+                    <TableCell>
+                      <Button variant="ghost" size="sm" onClick={() => setCopying(b)} aria-label={`Copy ${b.designation} to edit`}>Copy to edit</Button>
+                    </TableCell>
+                  ) : null}
+                </TableRow>
+              );
+            })}
           </TableBody>
         </Table>
       )}
       <p className="text-xs text-muted-foreground">
         Factors are multiples of the inner ring's speed (outer ring fixed); for a part whose outer ring turns the engine page uses the
-        cage factor ½(1 + r). Published rows: Case Western Reserve University Bearing Data Center.
+        cage factor ½(1 + r). Published rows: Case Western Reserve University Bearing Data Center. Rows marked built-in come with
+        Crankwise and are used when your table has no row of that designation{canWrite ? '; copy one to change it' : ''}.
       </p>
+      <Dialog open={copying !== null} onClose={() => setCopying(null)} title={`Copy ${copying?.designation ?? ''} into your table`} className="max-w-lg">
+        {copying !== null ? <BearingForm copyOf={{ ...copying, notes: copying.note }} onDone={() => setCopying(null)} /> : null}
+      </Dialog>
       <Dialog open={editing !== null} onClose={() => setEditing(null)} title={editing === 'new' ? 'Add a bearing' : `Edit ${editing?.designation ?? ''}`} className="max-w-lg">
         {editing !== null ? <BearingForm bearing={editing === 'new' ? undefined : editing} onDone={() => setEditing(null)} /> : null}
       </Dialog>

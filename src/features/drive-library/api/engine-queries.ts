@@ -1,5 +1,5 @@
 import { keepPreviousData, queryOptions } from '@tanstack/react-query';
-import type { EngineDetailDto, EngineListQuery, EngineListResponse } from '../../../../shared/schemas/engines-api';
+import type { EngineDetailDto, EngineListQuery, EngineListResponse, EngineRevisionDto } from '../../../../shared/schemas/engines-api';
 import { api } from '../../../lib/api-client';
 import { engineKeys } from './engine-keys';
 
@@ -24,5 +24,12 @@ export const engineQueryOptions = (id: number) =>
     queryFn: ({ signal }) => api.get<{ engine: EngineDetailDto }>(`/api/engines/${id}`, { signal }).then((r) => r.engine),
   });
 
-/** Where the browser downloads an engine's exports from. */
+/** GET /api/engines/:id/history: each save, newest first. */
+export const engineHistoryQueryOptions = (id: number) =>
+  queryOptions({
+    queryKey: engineKeys.history(id),
+    queryFn: ({ signal }) => api.get<{ items: EngineRevisionDto[] }>(`/api/engines/${id}/history`, { signal }).then((r) => r.items),
+  });
+
+/** Where the browser downloads an engine's exports from (CSV = the whole engine). */
 export const engineExportUrl = (id: number, format: 'json' | 'csv') => `/api/engines/${id}/export.${format}`;

@@ -1,16 +1,17 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { DriveDocument } from '../../../../shared/drive/types';
-import type { EngineDetailDto } from '../../../../shared/schemas/engines-api';
+import type { CsvImportPreviewDto, EngineDetailDto } from '../../../../shared/schemas/engines-api';
 import { api } from '../../../lib/api-client';
 import { engineKeys } from './engine-keys';
 
-type EngineBody = DriveDocument & { notes?: string };
+type EngineBody = DriveDocument & { notes?: string; version?: number };
 type EngineResponse = { engine: EngineDetailDto };
 
 function useEngineCacheUpdate() {
   const queryClient = useQueryClient();
   return (engine: EngineDetailDto) => {
     queryClient.setQueryData(engineKeys.detail(engine.id), engine);
+    void queryClient.invalidateQueries({ queryKey: engineKeys.history(engine.id) });
     return queryClient.invalidateQueries({ queryKey: engineKeys.lists() });
   };
 }
@@ -66,11 +67,30 @@ export function useImportEngineJson() {
   });
 }
 
-/** POST /api/engines/:id/import.csv: replaces the components; problems listed by line in the dialog. */
+/** POST /api/engines/:id/import.csv?preview=1: what the import would change, nothing written. */
+export function usePreviewEngineCsv(id: number) {
+  return useMutation({
+    mutationFn: (csv: string) => api.post<{ preview: CsvImportPreviewDto }>(`/api/engines/${id}/import.csv?preview=1`, { csv }).then((r) => r.preview),
+    meta: { inlineErrors: true },
+  });
+}
+
+/** POST /api/engines/:id/import.csv with the version previewed: replaces the engine (or its parts); problems listed by line. */
 export function useImportComponentsCsv(id: number) {
   const update = useEngineCacheUpdate();
   return useMutation({
-    mutationFn: (csv: string) => api.post<EngineResponse>(`/api/engines/${id}/import.csv`, { csv }).then((r) => r.engine),
+    mutationFn: ({ csv, version }: { csv: string; version: number }) =>
+      api.post<EngineResponse & { imported: { rows: number } }>(`/api/engines/${id}/import.csv`, { csv, version }),
+    onSuccess: (r) => update(r.engine),
+    meta: { inlineErrors: true },
+  });
+}
+
+/** POST /api/engines/import.csv: a whole-engine CSV as a new engine. */
+export function useImportEngineCsv() {
+  const update = useEngineCacheUpdate();
+  return useMutation({
+    mutationFn: (csv: string) => api.post<EngineResponse & { imported: { rows: number } }>('/api/engines/import.csv', { csv }).then((r) => r.engine),
     onSuccess: (engine) => update(engine),
     meta: { inlineErrors: true },
   });

@@ -1,8 +1,11 @@
-import type { InputHTMLAttributes, ReactNode } from 'react';
+import type { ComponentProps, ReactNode } from 'react';
 import { cn } from '../../../lib/cn';
 
+/** The outline of a field that must be fixed (inputs and selects alike). */
+export const invalidCls = 'aria-invalid:border-destructive aria-invalid:bg-destructive/5 aria-invalid:ring-2 aria-invalid:ring-destructive/40';
+
 /** A compact input for a table cell; its message (from the client check or the server) shows under it. */
-export function CellInput({ error, numeric, className, ...props }: InputHTMLAttributes<HTMLInputElement> & { error?: string; numeric?: boolean }) {
+export function CellInput({ error, numeric, className, ...props }: ComponentProps<'input'> & { error?: string; numeric?: boolean }) {
   return (
     <div className="grid gap-0.5">
       <input
@@ -11,13 +14,13 @@ export function CellInput({ error, numeric, className, ...props }: InputHTMLAttr
         inputMode={numeric ? 'decimal' : undefined}
         className={cn(
           'h-8 w-full rounded-md border border-input bg-card px-2 text-sm shadow-xs focus-visible:border-ring focus-visible:outline-2 focus-visible:outline-ring/30',
-          'aria-invalid:border-destructive aria-invalid:bg-destructive/5',
+          invalidCls,
           numeric && 'text-right font-mono tabular-nums',
           className,
         )}
         {...props}
       />
-      {error ? <span className="min-w-36 max-w-56 text-[11px] leading-tight text-destructive">{error}</span> : null}
+      {error ? <span role="status" className="min-w-36 max-w-56 text-[11px] leading-tight text-destructive">{error}</span> : null}
     </div>
   );
 }

@@ -9,7 +9,7 @@ import { LoadingState } from '../../../components/ui/spinner';
 import { EmptyState } from '../../../components/ui/states';
 import { Table, TableBody, TableCell, TableHead, TableHeader, TableRow } from '../../../components/ui/table';
 import { DEFAULT_ENGINE_FILTERS, enginesQueryOptions } from '../api/engine-queries';
-import { useImportEngineJson } from '../api/use-engine-mutations';
+import { useImportEngineCsv, useImportEngineJson } from '../api/use-engine-mutations';
 import { ImportProblems, importProblemLines, readFileText } from './import-problems';
 
 type SortField = 'name' | 'updatedAt';
@@ -41,13 +41,20 @@ export function EnginesTable({ enginePath, newEnginePath, canWrite, onImported }
   const fileRef = useRef<HTMLInputElement>(null);
   const [problems, setProblems] = useState<string[] | null>(null);
   const importJson = useImportEngineJson();
+  const importCsv = useImportEngineCsv();
 
   const onFile = async (file: File | undefined) => {
     if (!file) return;
     try {
+      const text = await readFileText(file);
+      // A whole-engine CSV (the Drive library's CSV export) creates an engine too.
+      if (/\.csv$/i.test(file.name) || text.trimStart().startsWith('[engine]')) {
+        onImported(await importCsv.mutateAsync(text));
+        return;
+      }
       let doc: unknown;
       try {
-        doc = JSON.parse(await readFileText(file));
+        doc = JSON.parse(text);
       } catch {
         setProblems([`${file.name} is not JSON; export a drive document (.drive.json) and choose that file`]);
         return;
@@ -69,8 +76,8 @@ export function EnginesTable({ enginePath, newEnginePath, canWrite, onImported }
         <Input type="search" aria-label="Search engines" placeholder="Search by name" className="max-w-72" value={search} onChange={(e) => setSearch(e.target.value)} />
         {canWrite ? (
           <div className="ml-auto flex gap-2">
-            <Button variant="outline" pending={importJson.isPending} onClick={() => fileRef.current?.click()}>Import JSON</Button>
-            <input ref={fileRef} type="file" accept=".json,application/json" className="hidden" aria-label="Drive document file" onChange={(e) => void onFile(e.target.files?.[0])} />
+            <Button variant="outline" pending={importJson.isPending || importCsv.isPending} onClick={() => fileRef.current?.click()}>Import JSON or CSV</Button>
+            <input ref={fileRef} type="file" accept=".json,application/json,.csv,text/csv" className="hidden" aria-label="Drive document file" onChange={(e) => void onFile(e.target.files?.[0])} />
             <Link to={newEnginePath} className="inline-flex h-9 items-center rounded-md bg-primary px-4 text-sm font-medium text-primary-foreground shadow-sm hover:bg-primary/90">New engine</Link>
           </div>
         ) : null}
@@ -114,7 +121,7 @@ export function EnginesTable({ enginePath, newEnginePath, canWrite, onImported }
           <Button variant="outline" size="sm" disabled={to >= total} onClick={() => setFilters({ ...effective, page: effective.page + 1 })}>Next</Button>
         </div>
       ) : null}
-      <Dialog open={problems !== null} onClose={() => setProblems(null)} title="The drive document was not imported" className="max-w-2xl"
+      <Dialog open={problems !== null} onClose={() => setProblems(null)} title="The file was not imported" className="max-w-2xl"
         footer={<Button onClick={() => setProblems(null)}>Close</Button>}>
         <ImportProblems lines={problems ?? []} />
       </Dialog>

@@ -5,6 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { makeUser } from '../../helpers/factories';
 import { apiError, server } from '../../helpers/msw-server';
 import { renderApp } from '../../helpers/render-app';
+import { SETTINGS } from '../drive-library/fixtures';
 
 describe('sign-in page', () => {
   it("shows the server's message when the password is wrong (401)", async () => {
@@ -28,6 +29,8 @@ describe('sign-in page', () => {
         received = { body: await request.json(), csrf: request.headers.get('x-csrf-token') };
         return HttpResponse.json({ user: me });
       }),
+      // The planner reads the shop's analysis defaults once it opens.
+      http.get('*/api/shop/settings', () => HttpResponse.json({ settings: SETTINGS })),
     );
     const { router } = renderApp('/sign-in?next=%2Fcapture-planner');
     const user = userEvent.setup();

@@ -7,7 +7,7 @@ import { DEMO_I4 } from '../../../../server/db/seeders/demo-engines';
 import { makeUser } from '../../helpers/factories';
 import { apiError, server } from '../../helpers/msw-server';
 import { renderApp } from '../../helpers/render-app';
-import { BEARINGS, engineDto } from './fixtures';
+import { BEARINGS, SETTINGS, engineDto } from './fixtures';
 
 function fakeEngine(doc: DriveDocument = DEMO_I4) {
   const puts: unknown[] = [];
@@ -15,10 +15,12 @@ function fakeEngine(doc: DriveDocument = DEMO_I4) {
   server.use(
     http.get('*/api/engines/41', () => HttpResponse.json({ engine: current })),
     http.get('*/api/bearings', () => HttpResponse.json({ items: BEARINGS })),
+    http.get('*/api/shop/settings', () => HttpResponse.json({ settings: SETTINGS })),
+    http.get('*/api/engines/41/history', () => HttpResponse.json({ items: [] })),
     http.put('*/api/engines/41', async ({ request }) => {
-      const body = (await request.json()) as DriveDocument;
+      const { version, ...body } = (await request.json()) as DriveDocument & { version: number };
       puts.push(body);
-      current = engineDto(body);
+      current = { ...engineDto(body), version: version + 1 };
       return HttpResponse.json({ engine: current });
     }),
   );
@@ -65,7 +67,7 @@ describe('engine page', { timeout: 30_000 }, () => {
     await user.clear(pulley);
     await user.type(pulley, '5');
     await user.click(screen.getByRole('button', { name: 'Save engine' }));
-    expect(await within(rowOf('Tensioner')).findByText(/pulleyMm must be between 20 and 400 mm/)).toBeTruthy();
+    expect(await within(rowOf('Tensioner')).findByText(/Pulley diameter must be between 20 and 400 mm/)).toBeTruthy();
     expect(pulley.getAttribute('aria-invalid')).toBe('true');
     expect(puts).toHaveLength(0);
   });

@@ -7,7 +7,7 @@ import { DEMO_DIESEL_I4, DEMO_I4, DEMO_V6 } from '../../../../server/db/seeders/
 import { makeUser } from '../../helpers/factories';
 import { apiError, server } from '../../helpers/msw-server';
 import { renderApp } from '../../helpers/render-app';
-import { BEARINGS, engineDto, summary } from './fixtures';
+import { BEARINGS, SETTINGS, engineDto, summary } from './fixtures';
 
 /** A fake GET /api/engines that searches, sorts and pages like the server, recording each query. */
 function fakeEngines(items: EngineSummaryDto[]) {
@@ -69,23 +69,25 @@ describe('engines table', () => {
         calls += 1;
         const body = (await request.json()) as { name: string };
         if (body.name === '') {
-          return apiError(400, 'validation_failed', 'name: name must not be empty (and 1 more)', [
-            { path: 'name', message: 'name must not be empty' },
-            { path: 'components[1].pulleyMm', message: 'pulleyMm must be between 20 and 400 mm (got 5)' },
+          return apiError(400, 'validation_failed', 'The engine name must not be empty (and 1 more)', [
+            { path: 'name', message: 'The engine name must not be empty' },
+            { path: 'components[1].pulleyMm', message: 'Pulley diameter must be between 20 and 400 mm (got 5)' },
           ]);
         }
         return HttpResponse.json({ engine: engineDto(DEMO_V6, 77) }, { status: 201 });
       }),
       http.get('*/api/engines/77', () => HttpResponse.json({ engine: engineDto(DEMO_V6, 77) })),
       http.get('*/api/bearings', () => HttpResponse.json({ items: BEARINGS })),
+      http.get('*/api/shop/settings', () => HttpResponse.json({ settings: SETTINGS })),
+      http.get('*/api/engines/77/history', () => HttpResponse.json({ items: [] })),
     );
     const { router } = renderApp('/drive-library', { user: makeUser({ role: 'admin' }) });
     await screen.findByRole('link', { name: 'Demo 1.6 I4 petrol' });
     const user = userEvent.setup();
     const bad = new File([JSON.stringify({ ...DEMO_V6, name: '' })], 'bad.drive.json', { type: 'application/json' });
     await user.upload(screen.getByLabelText('Drive document file'), bad);
-    expect(await screen.findByText('name: name must not be empty')).toBeTruthy();
-    expect(screen.getByText('components[1].pulleyMm: pulleyMm must be between 20 and 400 mm (got 5)')).toBeTruthy();
+    expect(await screen.findByText('The engine name must not be empty')).toBeTruthy();
+    expect(screen.getByText('Part 2: Pulley diameter must be between 20 and 400 mm (got 5)')).toBeTruthy();
     await user.click(screen.getByRole('button', { name: 'Close' }));
     const good = new File([JSON.stringify(DEMO_V6)], 'v6.drive.json', { type: 'application/json' });
     await user.upload(screen.getByLabelText('Drive document file'), good);

@@ -1,0 +1,15 @@
+// Types for the part of s3rver 3.7.1 (the local S3 fake; it ships none) the storage tests use.
+declare module 's3rver' {
+  interface S3rverOptions {
+    port?: number;
+    address?: string;
+    silent?: boolean;
+    directory: string;
+    configureBuckets?: { name: string; configs?: unknown[] }[];
+  }
+  export default class S3rver {
+    constructor(options: S3rverOptions);
+    run(): Promise<{ address: string; port: number }>;
+    close(): Promise<void>;
+  }
+}
