@@ -168,6 +168,8 @@ async function run(
   });
   const codes = (result as unknown as { statusCodeStats?: Record<string, { count: number }> }).statusCodeStats ?? {};
   if (process.env.BENCH_VERBOSE) console.log(label, JSON.stringify(codes));
+  // Each row as soon as it is measured, so a run cut short still leaves its figures.
+  console.log(`  ${label}: ${result.requests.average.toFixed(0)} req/s, p50 ${result.latency.p50} ms, p99 ${result.latency.p99} ms, ${result.errors} errors (${result.timeouts} timeouts), ${codes['429']?.count ?? 0} × 429`);
   return {
     label,
     rps: result.requests.average,
@@ -291,7 +293,7 @@ async function main(): Promise<void> {
         }
       }
       sections.push(`#### ${phase.name}${busy && phase.start ? ` (${busy.describe()})` : ''}\n\n${table(rows)}`);
-      if (phase.start) await busy?.stop();
+      if (phase.start) await Promise.race([busy?.stop(), new Promise((r) => setTimeout(r, 30_000))]);
     }
     const report = [
       `Run ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC on ${cpus().length} × ${cpus()[0]?.model.trim()}, load average ${loadavg()[0]!.toFixed(1)} at the end;`,
