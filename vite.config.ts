@@ -17,6 +17,8 @@ export default defineConfig({
           name: 'shared',
           environment: 'node',
           include: ['tests/shared/**/*.test.ts', 'tests/scripts/**/*.test.ts'],
+          // Signal tests run whole pipelines on generated captures: seconds each on a busy 2-core machine.
+          testTimeout: 60_000,
         },
       },
       {
@@ -38,6 +40,8 @@ export default defineConfig({
           environment: 'jsdom',
           include: ['tests/src/**/*.test.{ts,tsx}'],
           setupFiles: ['tests/setup/client.ts'],
+          // jsdom renders of whole pages take seconds on a busy machine.
+          testTimeout: 30_000,
         },
       },
       {

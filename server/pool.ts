@@ -16,12 +16,19 @@ export function workerFile(): string {
   return join(projectRoot(), 'dist', 'node', 'workers', 'analysis.js');
 }
 
+/** Threads of the pool: POOL_THREADS when set (1–64), else one per core but one, at least one. */
+export function poolThreads(): number {
+  const given = Number(process.env.POOL_THREADS);
+  if (Number.isInteger(given) && given >= 1 && given <= 64) return given;
+  return Math.max(1, availableParallelism() - 1);
+}
+
 /** The pool, created on first use. */
 export function getPool(): Piscina {
   if (!pool) {
     pool = new Piscina({
       filename: workerFile(),
-      maxThreads: Math.max(1, availableParallelism() - 1),
+      maxThreads: poolThreads(),
       minThreads: 0,
       idleTimeout: 30_000,
     });

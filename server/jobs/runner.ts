@@ -2,6 +2,7 @@
 // DATABASE_URL and the capture storage (STORAGE, STORAGE_DIR or S3_*), claims queued analyses and
 // runs them on its own piscina pool. Start one on each machine a shop adds; they share the
 // database and the object storage, and SKIP LOCKED keeps them from taking the same job.
+import { availableParallelism } from 'node:os';
 import { createSequelize } from '../db/sequelize';
 import { parseEnv } from '../env';
 import { createLogger } from '../logger';
@@ -10,6 +11,8 @@ import { createStorage } from '../storage/create-storage';
 import { startJobRunner } from './job-runner';
 
 async function main(): Promise<void> {
+  // No HTTP to keep a core for: the pool may use every core unless POOL_THREADS says otherwise.
+  process.env.POOL_THREADS ??= String(availableParallelism());
   const env = parseEnv();
   const logger = createLogger(env.LOG_LEVEL, env.NODE_ENV === 'production');
   if (!env.DATABASE_URL) {

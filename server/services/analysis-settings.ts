@@ -9,13 +9,27 @@ import { resolveSettings } from '../../shared/analysis/resolve-settings';
 import type { DriveDocument } from '../../shared/drive/types';
 import type { AnalysisSettings, AnalysisSettingsInput } from '../../shared/schemas/analysis-settings';
 import { captureSettings, type CaptureMetadata } from '../../shared/schemas/captures';
+import { ShopAnalysisDefaultsSchema } from '../../shared/schemas/shop-settings';
+import { Shop } from '../models/shop';
 
-/** Loads a shop's default analysis settings (the shop-settings feature registers one; none = {}). */
+/** Loads a shop's default analysis settings (the shop tier). */
 export type ShopDefaultsLoader = (shopId: number) => Promise<AnalysisSettingsInput>;
 
-let shopDefaultsLoader: ShopDefaultsLoader = async () => ({});
+/** The shop tier from Shop setup's analysis defaults (envelope band, samples per revolution, revolutions per block). */
+const fromShopSetup: ShopDefaultsLoader = async (shopId) => {
+  const shop = await Shop.findByPk(shopId, { attributes: ['id', 'analysisDefaults'] });
+  if (!shop?.analysisDefaults) return {};
+  try {
+    const parsed = ShopAnalysisDefaultsSchema.safeParse(JSON.parse(shop.analysisDefaults));
+    return parsed.success ? parsed.data : {};
+  } catch {
+    return {};
+  }
+};
 
-/** Registers where shop defaults come from (e.g. the Shop setup screen's analysis defaults). */
+let shopDefaultsLoader: ShopDefaultsLoader = fromShopSetup;
+
+/** Replaces where shop defaults come from (tests). */
 export function setShopDefaultsLoader(loader: ShopDefaultsLoader): void {
   shopDefaultsLoader = loader;
 }

@@ -10,6 +10,7 @@ import { Capture } from '../models/capture';
 import { Case } from '../models/case';
 import { Engine } from '../models/engine';
 import { Finding } from '../models/finding';
+import { Shop } from '../models/shop';
 import { User } from '../models/user';
 import { appendTimeline } from './case-timeline';
 import { registerEngineUsage } from './engine-usage';
@@ -60,10 +61,18 @@ async function checkPeople(shopId: number, body: { engineId?: number | null; tec
 export async function createCase(actor: Actor, body: CreateCase): Promise<Case> {
   return sequelizeOf().transaction(async (t) => {
     const technicianId = body.technicianId === undefined ? actor.id : body.technicianId;
-    await checkPeople(actor.shopId, { engineId: body.engineId, technicianId, leadId: body.leadId }, t);
+    // Shop setup's default lead and service advisor e-mail fill what the form left empty.
+    const shop = await Shop.findByPk(actor.shopId, { transaction: t });
+    let leadId = body.leadId;
+    if (leadId === null && shop?.defaultLeadId) {
+      const lead = await User.findOne({ where: { id: shop.defaultLeadId, shopId: actor.shopId, active: true }, transaction: t });
+      if (lead && (lead.role === 'lead' || lead.role === 'admin')) leadId = lead.id;
+    }
+    const advisorEmail = body.advisorEmail || shop?.serviceAdvisorEmail || '';
+    await checkPeople(actor.shopId, { engineId: body.engineId, technicianId, leadId }, t);
     const c = await Case.create({
       shopId: actor.shopId, roNumber: body.roNumber, vehicle: body.vehicle, engineId: body.engineId, complaint: body.complaint,
-      technicianId, leadId: body.leadId, createdById: actor.id, advisorName: body.advisorName, advisorEmail: body.advisorEmail,
+      technicianId, leadId, createdById: actor.id, advisorName: body.advisorName, advisorEmail,
       status: 'open', searchText: searchTextOf(body.roNumber, body.vehicle, body.complaint),
     }, { transaction: t });
     await appendTimeline({ shopId: actor.shopId, caseId: c.id, actorId: actor.id, kind: 'created', message: `${actor.name} opened the case for ${body.roNumber}` }, t);

@@ -94,7 +94,7 @@ export function cycleOption(input: CyclePlotInput): EChartsOption {
       markLine: events.length === 0 ? undefined : {
         symbol: 'none', silent: true, animation: false,
         lineStyle: { color: PLOT_COLORS.event, width: 2, type: input.phaseResolved ? 'solid' : 'dashed' },
-        label: { show: true, position: 'insideEndTop', color: PLOT_COLORS.event, fontFamily: PLOT_MONO, fontSize: exportMode ? 9 : 12 },
+        label: { show: true, position: 'insideEndTop', color: PLOT_COLORS.event, fontFamily: PLOT_MONO, fontSize: exportMode ? 9 : 12, formatter: (p: { name?: string }) => p.name ?? '' },
         data: events.map((e) => ({ xAxis: e.angleDeg, name: `${e.cylinder !== null ? `cyl ${e.cylinder} ` : ''}+${Math.round(input.event!.afterTdcDeg)}°` })),
       },
     } as SeriesOption,

@@ -73,7 +73,8 @@ function partSeries(
       formatter: (p: { name?: string }) => p.name ?? '',
     },
     lineStyle: { color, width: 1.2, type: approximate ? 'dashed' : 'solid', opacity: approximate ? 0.55 : 0.95 },
-    data: lines.map((x) => ({ name: markerLabel(x), xAxis: x.line.nominalOrder })),
+    // Sidebands are drawn but not labelled: their carrier's label names them.
+    data: lines.map((x) => ({ name: markerLabel(x), xAxis: x.line.nominalOrder, label: { show: x.line.sideband === 0 } })),
   };
   const markArea: MarkAreaComponentOption = {
     silent: true,
@@ -131,7 +132,7 @@ export function ordersHoverText(order: number, ordersLines: readonly PartLine[],
 export function ordersOption(input: OrdersPlotInput): EChartsOption {
   const exportMode = input.forExport === true;
   const hasEnvelope = !!input.envelope && input.envelope.amplitude.length > 1;
-  const maxOrder = Math.max(lastOrder(input.orders), input.envelope ? lastOrder(input.envelope) : 0);
+  const maxOrder = Math.ceil(Math.max(lastOrder(input.orders), input.envelope ? lastOrder(input.envelope) : 0));
   const viewMax = input.viewMaxOrder ?? defaultViewMaxOrder(input);
   const ordersLines = linesOf(input.candidates, 'orders');
   const envelopeLines = linesOf(input.candidates, 'envelope');
@@ -146,7 +147,7 @@ export function ordersOption(input: OrdersPlotInput): EChartsOption {
   const xAxis = axes.map((i) => ({
     type: 'value' as const, gridIndex: i, min: 0, max: exportMode ? viewMax : maxOrder,
     name: i === axes.length - 1 ? 'order (× crank speed)' : '', nameLocation: 'middle' as const, nameGap: 26, nameTextStyle: nameText,
-    axisLabel: { ...axisText, show: i === axes.length - 1 || exportMode }, splitLine, axisLine: { lineStyle: { color: PLOT_COLORS.grid } },
+    axisLabel: { ...axisText, show: i === axes.length - 1 || exportMode, formatter: (v: number) => String(Number(v.toFixed(2))) }, splitLine, axisLine: { lineStyle: { color: PLOT_COLORS.grid } },
   }));
   const yAxis = axes.map((i) => ({
     type: 'value' as const, gridIndex: i, scale: input.scale === 'db',

@@ -78,7 +78,7 @@ export function spectrogramOption(s: SpectrogramData, image: string | null, size
     backgroundColor: PLOT_COLORS.surface,
     animation: false,
     textStyle: { fontFamily: PLOT_SANS, color: PLOT_COLORS.text },
-    legend: { top: 4, left: g.left, textStyle: { color: PLOT_COLORS.text } },
+    legend: { top: 4, right: g.right + 40, textStyle: { color: PLOT_COLORS.text } },
     grid: { ...g },
     graphic: image
       ? [{ type: 'image', silent: true, z: -1, left: g.left, top: g.top, style: { image, width: Math.max(1, size.width - g.left - g.right), height: Math.max(1, size.height - g.top - g.bottom) } }]

@@ -81,7 +81,7 @@ export function speedOption(input: SpeedPlotInput): EChartsOption {
     legend: { top: 4, left: 64, textStyle: { color: PLOT_COLORS.text } },
     grid: { left: 64, right: 24, top: 40, bottom: 72 },
     xAxis: { type: 'value', name: 'time (s)', nameLocation: 'middle', nameGap: 26, nameTextStyle: nameText, axisLabel: axisText, splitLine: { lineStyle: { color: PLOT_COLORS.grid } } },
-    yAxis: { type: 'value', name: 'rpm', min: Math.floor(lo - pad), max: Math.ceil(hi + pad), nameTextStyle: nameText, axisLabel: axisText, splitLine: { lineStyle: { color: PLOT_COLORS.grid } } },
+    yAxis: { type: 'value', name: 'rpm', min: Math.floor((lo - pad) / 10) * 10, max: Math.ceil((hi + pad) / 10) * 10, nameTextStyle: nameText, axisLabel: axisText, splitLine: { lineStyle: { color: PLOT_COLORS.grid } } },
     tooltip: {
       trigger: 'axis', backgroundColor: '#0d1117', borderColor: PLOT_COLORS.grid, textStyle: { color: PLOT_COLORS.text, fontFamily: PLOT_MONO, fontSize: 13 },
       formatter: (params: unknown) => {

@@ -80,7 +80,7 @@ describe('Drive library in the browser', () => {
     const pulley = page.getByLabel('Pulley mm of row 2');
     await pulley.fill('5');
     await page.getByRole('button', { name: 'Save engine' }).click();
-    await page.getByTestId('component-row-1').getByText(/pulleyMm must be between 20 and 400 mm/).waitFor();
+    await page.getByTestId('component-row-1').getByText(/Pulley diameter must be between 20 and 400 mm/).waitFor();
     await shot(page, 'drive-library-cell-error');
     await pulley.fill('74');
     expect(await page.getByTestId('component-row-1').getByText('2.000').count()).toBe(1);

@@ -80,7 +80,8 @@ async function waitAnalysed(page: Page, count: number) {
 
 let casePath = '';
 
-describe('the workbench, whole job', () => {
+// Uploads wait for real analyses on a shared 2-core machine: each step gets 3 minutes at most.
+describe('the workbench, whole job', { timeout: 180_000 }, () => {
   it('a technician opens a case and uploads two captures at two probe points, which analyse; captures complete ranks them', async () => {
     const { page, problems } = await signedIn('tech');
     await page.getByRole('link', { name: 'New case' }).click();

@@ -4,6 +4,7 @@
 import { spawn } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import net from 'node:net';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { inject } from 'vitest';
 import { projectRoot } from '../../server/paths';
@@ -67,6 +68,8 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
       PUBLIC_URL: baseUrl,
       DATABASE_URL: databaseUrl(),
       DEMO: 'on',
+      // Capture files of this run (the demo cases' included) stay out of the checkout's .data/.
+      STORAGE_DIR: join(tmpdir(), `crankwise-e2e-captures-${process.pid}`),
       MAIL_FAKE_PORT: String(mailPort),
       SESSION_SECRET: 'e2e-session-secret-e2e-session-secret-0123',
       LOG_LEVEL: 'warn',

@@ -14,6 +14,9 @@ import { TimelineCard } from '../../features/cases/components/timeline-card';
 import { UploadPanel } from '../../features/cases/components/upload-panel';
 import { capturePlan, type PlanItem } from '../../features/cases/lib/capture-plan';
 import { ProbePlot } from '../../features/plots/components/probe-plot';
+import { SimilarCasesCard } from '../../features/case-memory/components/similar-cases-card';
+import { OrderTracksCard } from '../../features/order-tracks/components/order-tracks-chart';
+import { buttonVariants } from '../../components/ui/button';
 import { paths } from '../paths';
 import { SafetyNote } from './safety-note';
 
@@ -45,6 +48,13 @@ export function CaseRoute() {
     })));
   }, [c]);
   const components = (drive.data?.components ?? []).filter((p) => p.kind !== 'crankshaft').map((p) => p.name);
+  // Issue 20: record in the browser (with the engine's cylinders and idle for the live rpm), and
+  // order tracks for captures whose speed swept (≥ 1.2× from slowest to fastest revolution).
+  const recordPath = `${paths.caseRecord(c.id)}?cylinders=${drive.data?.cylinders ?? 4}${drive.data?.idleRpm ? `&idle=${drive.data.idleRpm}` : ''}`;
+  const swept = c.captures.filter((x) => {
+    const sp = x.analysis?.status === 'done' ? (x.analysis.summary?.speed as { minRpm?: number; maxRpm?: number } | undefined) : undefined;
+    return !!sp && !!sp.minRpm && !!sp.maxRpm && sp.maxRpm >= 1.2 * sp.minRpm;
+  });
   return (
     <div className="grid gap-5">
       <nav aria-label="Breadcrumb" className="text-sm"><Link className="text-primary hover:underline" to={paths.cases}>Cases</Link> <span className="text-muted-foreground">/ {c.roNumber}</span></nav>
@@ -57,6 +67,7 @@ export function CaseRoute() {
           <CapturePlanCard items={plan} canUpload onUse={(item) => setPrefill({ ...item.prefill })} />
           <div className="grid content-start gap-5">
             <UploadPanel caseId={c.id} shopId={me.user.shop.id} components={components} phase="before" prefill={prefill} />
+            <Link className={buttonVariants({ variant: 'outline' })} to={recordPath}>Record in the browser</Link>
             <SafetyNote />
           </div>
         </div>
@@ -64,6 +75,8 @@ export function CaseRoute() {
       <CapturesCard caseId={c.id} captures={c.captures} reviewPath={(id) => paths.captureReview(c.id, id)} />
       {c.findings.length === 0 ? <SuspectsCard c={c} role={role} /> : null}
       {probe ? <ProbePlot data={probe} fileName={c.roNumber} /> : null}
+      {swept.map((x) => (x.analysis ? <OrderTracksCard key={x.id} analysisId={x.analysis.id} /> : null))}
+      {c.findings.length > 0 ? <SimilarCasesCard caseId={c.id} caseHref={(id) => paths.case(id)} /> : null}
       <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
         {canUploadBefore ? null : <CapturePlanCard items={plan} canUpload={false} onUse={() => undefined} />}
         <TimelineCard entries={c.timeline} />

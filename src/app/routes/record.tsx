@@ -1,4 +1,5 @@
-import { useParams, useSearchParams } from 'react-router-dom';
+import { Link, useParams, useSearchParams } from 'react-router-dom';
+import { paths } from '../paths';
 import { PageHeader } from '../../components/ui/page-header';
 import { postForm } from '../../lib/api-client';
 import { RecordPanel } from '../../features/recording/components/record-panel';
@@ -8,8 +9,8 @@ import { SafetyNote } from './safety-note';
 /**
  * Record into a case from the browser (issue 20 item 1). The upload goes through the capture
  * upload path of the case (`POST /api/cases/:id/captures`, multipart: `metadata` first, then the
- * file). The engine's cylinder count and idle rpm come from the URL (?cylinders=&idle=) until the
- * case page passes the case's engine (issue 16's case page; TODO: read them from the case once it exists).
+ * file). The engine's cylinder count and idle rpm come from the URL (?cylinders=&idle=), which
+ * the case page's "Record in the browser" link fills from the case's engine.
  */
 export function RecordRoute() {
   const { caseId = '' } = useParams();
@@ -25,7 +26,7 @@ export function RecordRoute() {
   };
   return (
     <div className="space-y-6">
-      <PageHeader title={`Record into case ${caseId}`} description="Record the reference and the pickup straight from a USB audio interface; the recording is uploaded like a file." />
+      <PageHeader title={`Record into case ${caseId}`} description={<>Record the reference and the pickup straight from a USB audio interface; the recording is uploaded like a file. <Link className="text-primary hover:underline" to={paths.case(caseId)}>← Back to the case</Link></>} />
       <SafetyNote />
       <RecordPanel engine={{ cylinders, idleRpm: idle }} onUpload={upload} />
     </div>

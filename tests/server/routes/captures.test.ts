@@ -200,11 +200,31 @@ describe('upload → analysis → ranking', () => {
     expect((await outsider.get('/api/cases')).body.items.map((x: { id: number }) => x.id)).not.toContain(caseId);
   });
 
+  it('stores an after-repair capture\'s lines beside the confirmed suspect without re-ranking', async () => {
+    const before = (await lead.get(`/api/cases/${caseId}`)).body.case;
+    const top = before.findings[0];
+    const confirm = await lead.post(`/api/cases/${caseId}/confirm`, { findingId: top.id, note: 'outer race rough by hand' });
+    expect(confirm.status).toBe(200);
+    const after = captureWav(DEMO_I4, { seed: 13 }); // the same engine with the bearing replaced: no fault
+    const res = await upload(tech, caseId, [{ bytes: after, name: 'after.wav', metadata: { phase: 'after_repair', probePoint: { label: 'alternator housing', component: 'Alternator' } } }]);
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    expect((await waitForAnalysis(tech, res.body.captures[0].analysis.id)).status).toBe('done');
+    const c = (await lead.get(`/api/cases/${caseId}`)).body.case;
+    expect(c.status).toBe('confirmed');
+    const confirmed = c.findings.find((f: { id: number }) => f.id === top.id);
+    expect(confirmed.rank).toBe(top.rank);
+    expect(confirmed.score).toBe(top.score);
+    const afterEntry = confirmed.captures.find((x: { phase: string }) => x.phase === 'after_repair');
+    expect(afterEntry.captureId).toBe(res.body.captures[0].id);
+    expect(confirmed.afterRepairScore).toBeLessThan(top.score);
+  });
+
   it('refuses deleting a capture once the case is ranked (409)', async () => {
     const cap = (await lead.get(`/api/cases/${caseId}`)).body.case.captures[0];
     const res = await lead.delete(`/api/captures/${cap.id}`);
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe('case_ranked');
+    expect(res.body.error.message).toContain('confirmed');
   });
 });
 

@@ -38,7 +38,7 @@ function sweep(resonance: boolean) {
   return { r: runPipeline({ channels, sampleRateHz: g.sampleRateHz }, SETTINGS), order, fr };
 }
 
-describe('order tracks over a speed sweep', () => {
+describe('order tracks over a speed sweep', { timeout: 60_000 }, () => {
   const planted = sweep(true);
 
   it('the pipeline keeps an order map for a sweep, with rows spanning the run-up', () => {

@@ -40,7 +40,7 @@ function firingLine(g: ReturnType<typeof generateCapture>, drive: { cylinders: n
   return { snrDb: f?.snrDb ?? 0, strongest: !!f && f.amplitude >= top.amplitude / 10 ** (3 / 20) };
 }
 
-describe('speed from the pickup (no reference channel)', () => {
+describe('speed from the pickup (no reference channel)', { timeout: 60_000 }, () => {
   const cases: { name: string; o: GenerateOptionsInput; expectedRpm?: number }[] = [
     { name: 'I4 at idle, engine lines strong', o: { drive: i4, seed: 3, engineLevel: 1, wanderPct: 3, fault: { component: 'Alternator', fault: 'outer_race' } } },
     { name: 'I4 at idle, engine lines weak against a bearing fault', o: { drive: i4, seed: 5, engineLevel: 0.03, wanderPct: 3, fault: { component: 'Alternator', fault: 'outer_race' } } },

@@ -34,7 +34,7 @@ const HISTORY: { id: string; engine: 'i4' | 'v6'; part: string; kind: string; fa
   { id: 'v6-alt-outer', engine: 'v6', part: 'Alternator', kind: 'alternator', fault: 'outer_race', seed: 308, rpm: 700 },
 ];
 
-describe('case memory: signatures and similar cases', () => {
+describe('case memory: signatures and similar cases', { timeout: 60_000 }, () => {
   const history: PastCase[] = HISTORY.map((h) => {
     const drive = h.engine === 'i4' ? i4 : v6;
     const input = analyse(drive, { seed: h.seed, rpm: h.rpm, snrDb: 0, fault: { component: h.part, fault: h.fault } });

@@ -41,7 +41,7 @@ function history(cases: number) {
   return { obs, planted };
 }
 
-describe('ratio calibration from measured shaft lines', () => {
+describe('ratio calibration from measured shaft lines', { timeout: 60_000 }, () => {
   const { obs, planted } = history(4);
   const fit = fitRatioCalibration(obs);
 

@@ -25,13 +25,17 @@ export function SuspectsCard({ c, role }: { c: CaseDto; role: string }) {
   const [decision, setDecision] = useState<Decision>(null);
   const [otherPart, setOtherPart] = useState('');
   const [error, setError] = useState<string | null>(null);
+  const [showAll, setShowAll] = useState(false);
   const decide = useFindingDecision(c.id);
   const confirm = useConfirmCause(c.id);
   const move = useCaseMove(c.id);
   const specialist = role === 'specialist' || role === 'lead' || role === 'admin';
   const lead = role === 'lead' || role === 'admin';
   const decidable = c.status === 'ranked' || c.status === 'confirmed';
-  const findings = c.findings.filter((f) => f.inRanking || f.status !== 'suggested');
+  const all = c.findings.filter((f) => f.inRanking || f.status !== 'suggested');
+  // The top six and every decided one; the long tail of weak patterns on request.
+  const SHOWN = 6;
+  const findings = showAll ? all : all.filter((f, i) => i < SHOWN || f.status !== 'suggested');
   const close = () => { setDecision(null); setError(null); setOtherPart(''); };
   const submit = async (note: string) => {
     if (!decision) return;
@@ -86,7 +90,7 @@ export function SuspectsCard({ c, role }: { c: CaseDto; role: string }) {
                   </p>
                   <p className="mt-1 text-sm">{f.evidence}</p>
                   {f.notes.map((n) => <p key={n} className="text-sm text-foreground/80">{n}</p>)}
-                  {f.indistinguishableFrom.length > 0 ? (
+                  {f.indistinguishableFrom.length > 0 && !/cannot be told/i.test(f.evidence) ? (
                     <p className="mt-1 text-sm text-warning-foreground">{f.component} {separationAdvice(f.indistinguishableFrom)}.</p>
                   ) : null}
                   {f.note ? <p className="mt-1 text-sm text-muted-foreground">{f.decidedBy?.name ?? 'Someone'}{f.decidedAt ? `, ${when(f.decidedAt)}` : ''}: “{f.note}”</p> : null}
@@ -100,6 +104,11 @@ export function SuspectsCard({ c, role }: { c: CaseDto; role: string }) {
             ))}
           </ol>
         )}
+        {all.length > findings.length || showAll ? (
+          <Button variant="ghost" size="sm" className="mt-3" onClick={() => setShowAll(!showAll)}>
+            {showAll ? `Show the top ${SHOWN}` : `Show all ${all.length} suspects`}
+          </Button>
+        ) : null}
       </CardContent>
       <NoteDialog
         key={decision ? `${decision.kind}-${'finding' in decision ? decision.finding.id : 'other'}` : 'none'}

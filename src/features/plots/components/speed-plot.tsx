@@ -53,7 +53,7 @@ export function SpeedPlot({ timeS, rpm, edgesS, stats, playheadS = null, fileNam
   return (
     <PlotCard
       title="Speed"
-      description="Crank speed against time from the reference edges (ticks along the bottom). The playhead shows where Listen is."
+      description="Crank speed against time from the reference edges (drawn as ticks along the bottom where the analysis keeps them). The playhead shows where Listen is."
       option={option}
       height={340}
       fileName={fileName}

@@ -7,7 +7,7 @@ import { DEMO_I4 } from '../../../../server/db/seeders/demo-engines';
 import { makeUser } from '../../helpers/factories';
 import { server } from '../../helpers/msw-server';
 import { renderApp } from '../../helpers/render-app';
-import { BEARINGS, engineDto } from './fixtures';
+import { BEARINGS, SETTINGS, engineDto } from './fixtures';
 
 const measured = (correctionPct: number, offered: boolean, name: string) => ({
   correctionPct, scatterPct: 0.4, standardErrorPct: 0.2, captures: offered ? 4 : 2, cases: offered ? 4 : 2, offered,
@@ -20,6 +20,8 @@ function fake(initial: CalibrationDto) {
   server.use(
     http.get('*/api/engines/41', () => HttpResponse.json({ engine: engineDto(DEMO_I4) })),
     http.get('*/api/bearings', () => HttpResponse.json({ items: BEARINGS })),
+    http.get('*/api/shop/settings', () => HttpResponse.json({ settings: SETTINGS })),
+    http.get('*/api/engines/41/history', () => HttpResponse.json({ items: [] })),
     http.get('*/api/engines/41/calibration', () => HttpResponse.json(current)),
     http.put('*/api/engines/41/calibration', async ({ request }) => {
       const body = (await request.json()) as CalibrationDecision;
@@ -43,7 +45,7 @@ describe('Calibration card on the engine page', { timeout: 30_000 }, () => {
   it('shows each part\'s sentence and lets a lead accept an offered correction', async () => {
     const puts = fake(DTO);
     renderApp('/drive-library/41', { user: makeUser({ role: 'lead' }) });
-    const list = await screen.findByRole('list', { name: 'Ratio corrections' }, { timeout: 5000 });
+    const list = await screen.findByRole('list', { name: 'Ratio corrections' }, { timeout: 15_000 });
     expect(within(list).getByText('measured on 4 cases: Alternator turns 1.6 % slower than its nominal ratio ± 0.4 %')).toBeTruthy();
     // Not enough captures: the button is there but disabled.
     expect((within(list).getByRole('button', { name: 'Accept −1.2 %' }) as HTMLButtonElement).disabled).toBe(true);
@@ -56,13 +58,13 @@ describe('Calibration card on the engine page', { timeout: 30_000 }, () => {
   it('is read-only for a technician', async () => {
     fake(DTO);
     renderApp('/drive-library/41', { user: makeUser({ role: 'tech' }) });
-    const list = await screen.findByRole('list', { name: 'Ratio corrections' }, { timeout: 5000 });
+    const list = await screen.findByRole('list', { name: 'Ratio corrections' }, { timeout: 15_000 });
     expect(within(list).queryByRole('button')).toBeNull();
   });
 
   it('says what is needed when nothing was measured yet', async () => {
     fake({ engineId: 41, minCaptures: 4, parts: [] });
     renderApp('/drive-library/41', { user: makeUser({ role: 'lead' }) });
-    expect(await screen.findByText(/Corrections appear once 4 captures on two cases/, {}, { timeout: 5000 })).toBeTruthy();
+    expect(await screen.findByText(/Corrections appear once 4 captures on two cases/, {}, { timeout: 15_000 })).toBeTruthy();
   });
 });
