@@ -28,8 +28,8 @@ const DURATION_S = Number(process.env.BENCH_DURATION_S ?? 30);
 const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 3);
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 50);
 /** Fixed rates (requests per second over all connections) this 2-core machine sustains. */
-const READ_RATE = Number(process.env.BENCH_READ_RATE ?? 100);
-const SIGNIN_RATE = Number(process.env.BENCH_SIGNIN_RATE ?? 5);
+const READ_RATE = Number(process.env.BENCH_READ_RATE ?? 20);
+const SIGNIN_RATE = Number(process.env.BENCH_SIGNIN_RATE ?? 2);
 const ADMIN = { email: 'adam.admin@demo.crankwise.test', password: 'crank-demo-admin' };
 /** Sign-in runs rotate over this many technicians of the demo shop, as a shop's morning does. */
 const SIGNIN_USERS = 60;
@@ -168,6 +168,8 @@ async function run(
   });
   const codes = (result as unknown as { statusCodeStats?: Record<string, { count: number }> }).statusCodeStats ?? {};
   if (process.env.BENCH_VERBOSE) console.log(label, JSON.stringify(codes));
+  // Each row as soon as it is measured, so a run cut short still leaves its figures.
+  console.log(`  ${label}: ${result.requests.average.toFixed(0)} req/s, p50 ${result.latency.p50} ms, p99 ${result.latency.p99} ms, ${result.errors} errors (${result.timeouts} timeouts), ${codes['429']?.count ?? 0} × 429`);
   return {
     label,
     rps: result.requests.average,
@@ -265,6 +267,10 @@ async function main(): Promise<void> {
       DEMO: 'on',
       NODE_ENV: 'production',
       LOG_LEVEL: 'warn',
+      // Bench-only limiter setting: sign-ins that time out under 50 connections count as failures
+      // and would trip the per-IP limit for the rest of the run (429s are still counted apart).
+      SIGNIN_IP_MAX_FAILURES: '1000000',
+      SIGNIN_MAX_FAILURES: '1000000',
     };
     server = spawn(process.execPath, [entry], { cwd: root, env, stdio: ['ignore', 'ignore', 'inherit'] });
     await waitForHealth(base, server);
@@ -287,6 +293,7 @@ async function main(): Promise<void> {
         }
       }
       sections.push(`#### ${phase.name}${busy && phase.start ? ` (${busy.describe()})` : ''}\n\n${table(rows)}`);
+      if (phase.start) await Promise.race([busy?.stop(), new Promise((r) => setTimeout(r, 30_000))]);
     }
     const report = [
       `Run ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC on ${cpus().length} × ${cpus()[0]?.model.trim()}, load average ${loadavg()[0]!.toFixed(1)} at the end;`,

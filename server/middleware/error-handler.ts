@@ -1,9 +1,10 @@
 // Turns every error into `{ error: { code, message, details? } }` with the right status.
 import type { ErrorRequestHandler, RequestHandler } from 'express';
-import { BaseError as SequelizeBaseError, UniqueConstraintError, ValidationError as SequelizeValidationError, ForeignKeyConstraintError } from 'sequelize';
+import { BaseError as SequelizeBaseError, ConnectionError as SequelizeConnectionError, UniqueConstraintError, ValidationError as SequelizeValidationError, ForeignKeyConstraintError } from 'sequelize';
 import { ZodError } from 'zod';
 import { AppError } from '../errors';
 import { loggablePath } from './request-id';
+import { isLockConflict } from '../db/retry';
 
 /** `a.b.0` style path of a zod issue; `(body)` for the whole object. */
 function issuePath(path: PropertyKey[]): string {
@@ -42,6 +43,15 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, next) 
     appError = new AppError(400, 'validation_failed', details[0] ? `${details[0].path}: ${details[0].message}` : err.message, details);
   } else if (isBodyParserError(err)) {
     appError = bodyParserAppError(err);
+  } else if (isLockConflict(err)) {
+    // A deadlock or lock-wait timeout that escaped a transaction without retry: safe to send again.
+    (req.log ?? console).warn('lock conflict', { error: loggableError(err), path: loggablePath(req.originalUrl ?? req.path) });
+    res.setHeader('Retry-After', '1');
+    appError = new AppError(503, 'busy', 'Someone else was changing the same records; nothing was saved. Try again');
+  } else if (isDatabaseUnavailable(err)) {
+    (req.log ?? console).warn('database unavailable', { error: loggableError(err), path: loggablePath(req.originalUrl ?? req.path) });
+    res.setHeader('Retry-After', '10');
+    appError = new AppError(503, 'database_unavailable', 'The database is not answering right now; nothing was saved. Try again in a minute, and tell your admin if it keeps happening');
   } else if (err instanceof URIError) {
     // Express decodes path parameters before any route runs; a malformed %-escape throws here.
     appError = new AppError(400, 'bad_request', 'The address has a malformed %-escape; check the link or type the address again');
@@ -59,6 +69,26 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, next) 
     error: { code: appError.code, message: appError.message, ...(appError.details !== undefined ? { details: appError.details } : {}) },
   });
 };
+
+/** Driver codes of a database that is down, restarting or unreachable (mariadb connector 3 names). */
+const UNAVAILABLE_CODES = new Set([
+  'ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', 'ER_GET_CONNECTION_TIMEOUT', 'ER_CONNECTION_TIMEOUT', 'ER_SOCKET_UNEXPECTED_CLOSE',
+  'ER_CONNECTION_ALREADY_CLOSED', 'ER_CMD_CONNECTION_CLOSED', 'ER_SERVER_SHUTDOWN', 'ER_CON_COUNT_ERROR', 'PROTOCOL_CONNECTION_LOST',
+]);
+
+/** Whether `err` says the database cannot be reached (as opposed to a query it refused). */
+function isDatabaseUnavailable(err: unknown): boolean {
+  if (err instanceof SequelizeConnectionError) return true;
+  let e: unknown = err;
+  for (let depth = 0; depth < 3 && typeof e === 'object' && e !== null; depth += 1) {
+    const x = e as { code?: unknown; fatal?: unknown; errno?: unknown; original?: unknown; parent?: unknown };
+    if (typeof x.code === 'string' && UNAVAILABLE_CODES.has(x.code)) return true;
+    // 1053 server shutdown in progress, 2006 server has gone away, 2013 lost connection during query.
+    if (typeof x.errno === 'number' && [1053, 2006, 2013].includes(x.errno)) return true;
+    e = x.original ?? x.parent;
+  }
+  return false;
+}
 
 /** The 4xx status an http-errors style error carries (`status`/`statusCode`), else null. */
 function clientErrorStatus(err: unknown): number | null {

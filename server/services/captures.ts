@@ -4,6 +4,7 @@
  * the status rules checked there), deletion before ranking, re-analysis with other settings (the
  * older Analysis is kept), and retrying a failed job.
  */
+import { transactionWithRetry } from '../db/retry';
 import type { Transaction } from 'sequelize';
 import { AnalysisSettingsSchema } from '../../shared/schemas/analysis-settings';
 import type { UploadMetadata } from '../../shared/schemas/captures';
@@ -40,7 +41,7 @@ export async function queueAnalysis(capture: Capture, runSettings: Record<string
  */
 export async function createCaptures(actor: Actor, caseId: number, uploads: StoredUpload[], metadata: UploadMetadata, storage: ObjectStorage): Promise<Capture[]> {
   try {
-    return await sequelizeOf().transaction(async (t) => {
+    return await transactionWithRetry(sequelizeOf(), async (t) => {
       const c = await lockCase(actor.shopId, caseId, t);
       const out: Capture[] = [];
       for (const u of uploads) {
@@ -97,7 +98,8 @@ export async function deleteCapture(actor: Actor, captureId: number, storage: Ob
 /** Queues a re-analysis with the "this run" settings (validated now; 400 naming a bad field). */
 export async function reanalyzeCapture(actor: Actor, captureId: number, settings: Record<string, unknown>): Promise<Analysis> {
   AnalysisSettingsSchema.parse(settings);
-  return sequelizeOf().transaction(async (t) => {
+  // The job runner locks analysis rows too: a deadlock reruns this transaction (issue 19), never a 500.
+  return transactionWithRetry(sequelizeOf(), async (t) => {
     const found = await Capture.findOne({ where: { id: captureId, shopId: actor.shopId }, transaction: t });
     if (!found) throw new AppError(404, 'not_found', 'Capture not found');
     const c = await lockCase(actor.shopId, found.caseId, t);

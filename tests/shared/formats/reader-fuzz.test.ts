@@ -132,7 +132,7 @@ function applyTextEdits(source: string, edits: TextEdit[]): string {
   return s;
 }
 
-describe('capture readers under random and damaged input', () => {
+describe('capture readers under random and damaged input', { timeout: 60_000 }, () => {
   it('random bytes, named .wav or .csv: a capture or a typed error', () => {
     fc.assert(
       fc.property(fc.uint8Array({ maxLength: 3000 }), fc.constantFrom('x.wav', 'x.csv', 'x'), (bytes, name) => {
@@ -207,7 +207,7 @@ describe('capture readers under random and damaged input', () => {
   });
 });
 
-describe('very wide CSV', () => {
+describe('very wide CSV', { timeout: 60_000 }, () => {
   // Before the width check, layout detection was quadratic in the fields per line: 3 rows of
   // 200 000 numbers ran for minutes, and each channel column reserved 256 KiB.
   it.each([
