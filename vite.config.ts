@@ -52,7 +52,7 @@ export default defineConfig({
           include: ['tests/e2e/**/*.test.ts'],
           globalSetup: ['tests/setup/global-db.ts'],
           fileParallelism: false,
-          testTimeout: 60_000,
+          testTimeout: 240_000, // whole-job walks take minutes on a busy machine
           hookTimeout: 180_000,
         },
       },
