@@ -5,6 +5,7 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
   test: {
     name: 'faults',
+    reporters: ['default', './tests/setup/summary-reporter.ts'],
     environment: 'node',
     include: ['tests/faults/**/*.test.ts'],
     fileParallelism: false,
