@@ -11,24 +11,25 @@ function ipAndEmailKey(req: Request): string {
   return `${ipKeyGenerator(req.ip ?? '')}|${email}`;
 }
 
-/** At most `maxFailures` failed sign-ins per IP + e-mail per `windowMin` minutes; then 429 `too_many_attempts`. */
-export function signInLimit(maxFailures: number, windowMin: number): RequestHandler {
+/** A limiter of failed sign-ins only: `maxFailures` per key per `windowMin` minutes, then 429 `too_many_attempts`. */
+function failedSignInLimit(maxFailures: number, windowMin: number, keyGenerator: (req: Request) => string, message: string): RequestHandler {
   return rateLimit({
     windowMs: windowMin * 60_000,
     limit: maxFailures,
     skipSuccessfulRequests: true,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    keyGenerator: ipAndEmailKey,
+    keyGenerator,
     handler: (_req, res) => {
-      res.status(429).json({
-        error: {
-          code: 'too_many_attempts',
-          message: `Too many failed sign-ins for this address; wait ${windowMin} minutes or reset your password`,
-        },
-      });
+      res.status(429).json({ error: { code: 'too_many_attempts', message } });
     },
   });
+}
+
+/** At most `maxFailures` failed sign-ins per IP + e-mail per `windowMin` minutes; then 429 `too_many_attempts`. */
+export function signInLimit(maxFailures: number, windowMin: number): RequestHandler {
+  return failedSignInLimit(maxFailures, windowMin, ipAndEmailKey,
+    `Too many failed sign-ins for this address; wait ${windowMin} minutes or reset your password`);
 }
 
 /**
@@ -38,22 +39,8 @@ export function signInLimit(maxFailures: number, windowMin: number): RequestHand
  * default (100 per 15 minutes) because a whole shop may sign in from one address.
  */
 export function signInIpLimit(maxFailures: number, windowMin: number): RequestHandler {
-  return rateLimit({
-    windowMs: windowMin * 60_000,
-    limit: maxFailures,
-    skipSuccessfulRequests: true,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    keyGenerator: (req) => ipKeyGenerator(req.ip ?? ''),
-    handler: (_req, res) => {
-      res.status(429).json({
-        error: {
-          code: 'too_many_attempts',
-          message: `Too many failed sign-ins from this network; wait ${windowMin} minutes, or ask your admin to reset your password`,
-        },
-      });
-    },
-  });
+  return failedSignInLimit(maxFailures, windowMin, (req) => ipKeyGenerator(req.ip ?? ''),
+    `Too many failed sign-ins from this network; wait ${windowMin} minutes, or ask your admin to reset your password`);
 }
 
 /**
