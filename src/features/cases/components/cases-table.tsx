@@ -2,6 +2,7 @@ import { useQuery } from '@tanstack/react-query';
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import { useDeferredValue, useId, useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
+import { Pager } from '../../../components/ui/pager';
 import { CASE_STATUSES, type CaseListItemDto, type CaseListQuery, type CaseStatus } from '../../../../shared/schemas/cases';
 import { Button } from '../../../components/ui/button';
 import { Input } from '../../../components/ui/input';
@@ -81,8 +82,6 @@ export function CasesTable({ casePath }: { casePath: (id: number) => string }) {
   });
 
   const total = data?.total ?? 0;
-  const from = total === 0 ? 0 : (effective.page - 1) * effective.pageSize + 1;
-  const to = Math.min(total, effective.page * effective.pageSize);
   const filtered = effective.search !== '' || effective.status.length > 0;
   return (
     <div className="grid gap-4">
@@ -137,13 +136,7 @@ export function CasesTable({ casePath }: { casePath: (id: number) => string }) {
           </TableBody>
         </Table>
       )}
-      {total > 0 ? (
-        <div className="flex items-center justify-end gap-3 text-sm text-muted-foreground">
-          <span className="font-mono tabular-nums">{from}–{to} of {total}</span>
-          <Button variant="outline" size="sm" disabled={effective.page <= 1} onClick={() => setFilters({ ...effective, page: effective.page - 1 })}>Previous</Button>
-          <Button variant="outline" size="sm" disabled={to >= total} onClick={() => setFilters({ ...effective, page: effective.page + 1 })}>Next</Button>
-        </div>
-      ) : null}
+      <Pager page={effective.page} pageSize={effective.pageSize} total={total} onPage={(page) => setFilters({ ...effective, page })} />
     </div>
   );
 }

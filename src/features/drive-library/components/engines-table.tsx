@@ -1,6 +1,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { useDeferredValue, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
+import { Pager } from '../../../components/ui/pager';
 import type { EngineDetailDto, EngineListQuery } from '../../../../shared/schemas/engines-api';
 import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
@@ -68,8 +69,6 @@ export function EnginesTable({ enginePath, newEnginePath, canWrite, onImported }
   };
 
   const total = data?.total ?? 0;
-  const from = total === 0 ? 0 : (effective.page - 1) * effective.pageSize + 1;
-  const to = Math.min(total, effective.page * effective.pageSize);
   return (
     <div className="grid gap-4">
       <div className="flex flex-wrap items-center gap-3">
@@ -114,13 +113,7 @@ export function EnginesTable({ enginePath, newEnginePath, canWrite, onImported }
           </TableBody>
         </Table>
       )}
-      {total > 0 ? (
-        <div className="flex items-center justify-end gap-3 text-sm text-muted-foreground">
-          <span className="font-mono tabular-nums">{from}–{to} of {total}</span>
-          <Button variant="outline" size="sm" disabled={effective.page <= 1} onClick={() => setFilters({ ...effective, page: effective.page - 1 })}>Previous</Button>
-          <Button variant="outline" size="sm" disabled={to >= total} onClick={() => setFilters({ ...effective, page: effective.page + 1 })}>Next</Button>
-        </div>
-      ) : null}
+      <Pager page={effective.page} pageSize={effective.pageSize} total={total} onPage={(page) => setFilters({ ...effective, page })} />
       <Dialog open={problems !== null} onClose={() => setProblems(null)} title="The file was not imported" className="max-w-2xl"
         footer={<Button onClick={() => setProblems(null)}>Close</Button>}>
         <ImportProblems lines={problems ?? []} />
